@@ -1,0 +1,8 @@
+/** `tandem size`: placeholder until its issue lands. */
+import type { IO } from '../io.js';
+import { EXIT } from '../exit-codes.js';
+
+export default async function size(_argv: string[], io: IO): Promise<number> {
+  io.stderr.write('tandem size: not built yet\n');
+  return EXIT.internal;
+}
