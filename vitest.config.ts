@@ -4,7 +4,8 @@ export default defineConfig({
   test: {
     include: ['test/**/*.test.ts'],
     environment: 'node',
-    testTimeout: 20000,
+    testTimeout: 30000,
     pool: 'forks',
+    reporters: ['default', './test/support/summary-reporter.ts'],
   },
 });

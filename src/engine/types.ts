@@ -93,3 +93,11 @@ export interface Recommendation {
   /** The answers that produced it. */
   answers: Answers;
 }
+
+/**
+ * The loaded rule base as other modules see it. The engine's implementation may hold more
+ * (designs, procedures, rules), but `questions` lists every question in asking order.
+ */
+export interface RuleBaseView {
+  questions: Question[];
+}

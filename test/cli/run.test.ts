@@ -1,0 +1,51 @@
+import { describe, expect, it } from 'vitest';
+import { Readable } from 'node:stream';
+import { run } from '../../src/cli/run.js';
+import type { IO } from '../../src/cli/io.js';
+
+function memoryIO(): IO & { out: () => string; err: () => string } {
+  let out = '';
+  let err = '';
+  return {
+    stdout: { write: (s: string) => (out += s) },
+    stderr: { write: (s: string) => (err += s) },
+    stdin: Readable.from([]),
+    interactive: false,
+    color: false,
+    env: {},
+    cwd: process.cwd(),
+    out: () => out,
+    err: () => err,
+  };
+}
+
+describe('run(argv, io)', () => {
+  it('lists the commands and exits 0 on --help', async () => {
+    const io = memoryIO();
+    expect(await run(['--help'], io)).toBe(0);
+    for (const c of ['advise', 'analyze', 'size', 'audit', 'plan', 'rules', 'demo']) expect(io.out()).toContain(c);
+  });
+  it('exits 2 with usage when no command is given', async () => {
+    const io = memoryIO();
+    expect(await run([], io)).toBe(2);
+  });
+  it('names the unknown command and the known ones, exit 2', async () => {
+    const io = memoryIO();
+    expect(await run(['analyse-this'], io)).toBe(2);
+    expect(io.err()).toMatch(/unknown command 'analyse-this'.*advise/);
+  });
+  it('prints the version', async () => {
+    const io = memoryIO();
+    expect(await run(['--version'], io)).toBe(0);
+    expect(io.out()).toMatch(/^\d+\.\d+\.\d+\n$/);
+  });
+});
+
+describe('version', () => {
+  it('src/version.ts matches package.json', async () => {
+    const { readFileSync } = await import('node:fs');
+    const { VERSION } = await import('../../src/version.js');
+    const pkg = JSON.parse(readFileSync(new URL('../../package.json', import.meta.url), 'utf8')) as { version: string };
+    expect(VERSION).toBe(pkg.version);
+  });
+});
