@@ -26,6 +26,8 @@ export interface Question {
   /** number questions */
   min?: number;
   max?: number;
+  /** When true, the value must be strictly greater than `min` (e.g. an equivalence margin > 0). */
+  minExclusive?: boolean;
   integer?: boolean;
   /** May be left blank (text/number). */
   optional?: boolean;
@@ -66,6 +68,8 @@ export interface Recommendation {
     reasons: string[];
     /** For family 'other': what to do instead. */
     instead?: string;
+    /** The id of the classification rule (rules/*.yaml) that decided the design. */
+    rule?: string;
   };
   procedure: {
     id: ProcedureId | null;
@@ -80,6 +84,14 @@ export interface Recommendation {
     estimate: string;
     alternative: Alternative;
     margin?: number;
+    /** Confidence level the plan should use when it is not 0.95 (equivalence: 0.90, i.e. 1 - 2 alpha). */
+    confidence?: number;
+    /** When the procedure applies (from the catalogue). */
+    applies?: string;
+    /** Notes on how to read the result, e.g. how equivalence is decided. */
+    notes?: string[];
+    /** Published sources for the procedure (author, year). */
+    references?: string[];
   };
   conditions: ConditionToCheck[];
   /** "each difference is <first> minus <second>; a positive difference means <first> was higher" */

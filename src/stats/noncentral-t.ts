@@ -1,8 +1,271 @@
-/** Placeholder: the noncentral t distribution (Lenth 1989 AS 243; Benton and Krishnamoorthy 2003). */
-export function noncentralTCdf(_x: number, _df: number, _ncp: number): number {
-  throw new Error('noncentral t is not built yet');
+/**
+ * The noncentral t distribution: T' = (Z + ncp) / sqrt(V / df), Z standard normal, V chi-square
+ * with df degrees of freedom (df may be fractional, as in Welch), independent.
+ *
+ * Method. For t >= 0 with y = t^2 / (df + t^2), Lenth (1989, Applied Statistics 38, AS 243) writes
+ *
+ *   P(T' <= t) = Phi(-ncp) + 1/2 * sum_m w_m * I_y((m + 1)/2, df/2),
+ *   w_m = exp(-ncp^2/2) * (ncp/sqrt 2)^m / Gamma(m/2 + 1),   m = 0, 1, 2, ...
+ *
+ * (the even m are AS 243's Poisson weights p_j, the odd m its q_j). Because 1/2 * sum_m w_m equals
+ * Phi(ncp), the upper tail has a series of its own with nothing subtracted:
+ *
+ *   P(T' > t) = 1/2 * sum_m w_m * I_{1-y}(df/2, (m + 1)/2).
+ *
+ * Following Benton and Krishnamoorthy (2003, Computational Statistics & Data Analysis 43, 249-267)
+ * each series is summed outward in both directions from its largest term, not from m = 0, so that
+ * exp(-ncp^2/2) never underflows (weights are formed in log space) and a noncentrality of 40 needs
+ * only the few hundred terms that matter. The incomplete beta is @stdlib's (through
+ * distributions.ts), accurate to near machine precision in both tails.
+ *
+ * Negative x: P(T' <= x; ncp) = P(T' >= -x; -ncp). With ncp >= 0 and t >= 0 both series have only
+ * positive terms, so both tails keep their relative precision however small. With ncp < 0 the
+ * lower tail at t >= 0 is at least 1/2 (Lenth's series, its alternating terms bounded by 1); the
+ * upper tail there is 1 minus it while that leaves at least 1e-6, and otherwise it is integrated
+ * directly over the chi distribution of the denominator (see `smallUpperTail`), which has only
+ * positive contributions and so keeps its digits in the far tail.
+ *
+ * Accuracy: checked against mpmath at 40 digits (test/fixtures/mpmath-nct) for df 2 to 10,000
+ * (fractional too) and ncp 0 to 40, tails included, to a relative error below 1e-9.
+ *
+ * Example: noncentralTSf(2.0930240544, 19, 3) = 0.8179... (the power of a two-sided paired t at
+ * alpha 0.05 with 20 pairs and d_z = 3/sqrt(20), upper-tail part).
+ */
+import { betainc, gammaln, normalCdf, tCdf } from './distributions.js';
+
+const LN_SQRT_2PI = 0.5 * Math.log(2 * Math.PI);
+/** Relative size of a neglected remainder. */
+const EPS = 1e-17;
+/** Beyond this the small tail is taken as 1 minus the big one (relative error then at most ~1e-9). */
+const SUBTRACT_OK = 1e-6;
+const MAX_TERMS = 20000;
+
+/** P(T' <= x) for the noncentral t with `df` > 0 degrees of freedom and noncentrality `ncp`. */
+export function noncentralTCdf(x: number, df: number, ncp: number): number {
+  if (Number.isNaN(x) || Number.isNaN(ncp) || !(df > 0) || !Number.isFinite(ncp)) return NaN;
+  if (x < 0) return upperTail(-x, df, -ncp);
+  return lowerTail(x, df, ncp);
 }
-/** Upper tail P(T' > x), computed directly. */
-export function noncentralTSf(_x: number, _df: number, _ncp: number): number {
-  throw new Error('noncentral t is not built yet');
+
+/** Upper tail P(T' > x), computed directly (never as 1 minus a number close to 1). */
+export function noncentralTSf(x: number, df: number, ncp: number): number {
+  if (Number.isNaN(x) || Number.isNaN(ncp) || !(df > 0) || !Number.isFinite(ncp)) return NaN;
+  if (x < 0) return lowerTail(-x, df, -ncp);
+  return upperTail(x, df, ncp);
+}
+
+/**
+ * The p-quantile, by bracketing and bisection-secant (Illinois) on the tail that is smaller at p,
+ * to a relative tolerance of about 1e-12.
+ */
+export function noncentralTQuantile(p: number, df: number, ncp: number): number {
+  if (!(p >= 0 && p <= 1) || !(df > 0) || !Number.isFinite(ncp)) return NaN;
+  if (p === 0) return -Infinity;
+  if (p === 1) return Infinity;
+  const lowerSide = p <= 0.5;
+  // g(x) increasing in x, zero at the quantile.
+  const g = (x: number): number => (lowerSide ? noncentralTCdf(x, df, ncp) - p : (1 - p) - noncentralTSf(x, df, ncp));
+  let step = 1 + Math.abs(ncp) * 0.5;
+  let lo = ncp - step;
+  let hi = ncp + step;
+  while (g(lo) > 0) { hi = lo; step *= 2; lo = ncp - step; if (step > 1e300) return -Infinity; }
+  while (g(hi) < 0) { lo = hi; step *= 2; hi = ncp + step; if (step > 1e300) return Infinity; }
+  let glo = g(lo);
+  let ghi = g(hi);
+  let side = 0;
+  for (let i = 0; i < 200; i++) {
+    let mid = (lo * ghi - hi * glo) / (ghi - glo);
+    if (!Number.isFinite(mid) || mid <= lo || mid >= hi) mid = 0.5 * (lo + hi);
+    const gm = g(mid);
+    if (gm === 0) return mid;
+    if (gm < 0) { lo = mid; glo = gm; if (side === -1) ghi /= 2; side = -1; }
+    else { hi = mid; ghi = gm; if (side === 1) glo /= 2; side = 1; }
+    if (hi - lo <= 1e-12 * Math.max(1, Math.abs(mid))) break;
+  }
+  return 0.5 * (lo + hi);
+}
+
+/** P(T' <= t) for t >= 0. */
+function lowerTail(t: number, df: number, d: number): number {
+  if (t === Infinity) return 1;
+  if (d === 0) return tCdf(t, df);
+  if (df === Infinity) return normalCdf(t - d);
+  if (t === 0) return normalCdf(-d);
+  const y = (t * t) / (df + t * t);
+  const s = outwardSum(d, (m) => betainc(y, (m + 1) / 2, df / 2), 'lower');
+  return Math.min(1, Math.max(0, normalCdf(-d) + 0.5 * s));
+}
+
+/** P(T' > t) for t >= 0. */
+function upperTail(t: number, df: number, d: number): number {
+  if (t === Infinity) return 0;
+  if (d === 0) return tCdf(-t, df);
+  if (df === Infinity) return normalCdf(d - t);
+  if (t === 0) return normalCdf(d);
+  if (d > 0) {
+    const xc = df / (df + t * t);
+    const s = outwardSum(d, (m) => betainc(xc, df / 2, (m + 1) / 2), 'upper');
+    return Math.min(1, Math.max(0, 0.5 * s));
+  }
+  const viaBig = 1 - lowerTail(t, df, d);
+  if (viaBig >= SUBTRACT_OK) return viaBig;
+  return smallUpperTail(t, df, -d);
+}
+
+/**
+ * sum_m sign_m * |w_m| * I(m), summed outward from the largest term.
+ * `kind` says how I(m) moves: 'lower' (I_y((m+1)/2, b), decreasing in m) puts the largest term at
+ * or below the mode of the weights; 'upper' (increasing in m) at or above it.
+ */
+function outwardSum(d: number, incBeta: (m: number) => number, kind: 'lower' | 'upper'): number {
+  const a = Math.abs(d);
+  const logRatio = Math.log(a / Math.SQRT2);
+  const halfD2 = 0.5 * d * d;
+  const cache = new Map<number, number>();
+  /** log |term m| (-Infinity when the incomplete beta underflows). */
+  const logTerm = (m: number): number => {
+    let v = cache.get(m);
+    if (v === undefined) {
+      const ib = incBeta(m);
+      v = ib > 0 ? -halfD2 + m * logRatio - gammaln(m / 2 + 1) + Math.log(ib) : -Infinity;
+      cache.set(m, v);
+    }
+    return v;
+  };
+  const sign = (m: number): number => (d < 0 && m % 2 === 1 ? -1 : 1);
+
+  // Mode of the weights |w_m|: the ratio |w_{m+1}/w_m| falls through 1 near m = d^2.
+  const mw = Math.max(0, Math.floor(d * d) + 1);
+  const peak = kind === 'lower' ? findPeak(logTerm, 0, mw, false) : findPeak(logTerm, Math.max(0, mw - 2), mw + Math.ceil(60 * a) + 200, true);
+
+  const lp = logTerm(peak);
+  if (lp === -Infinity) return 0;
+  // Sum relative to the peak term, then scale back (keeps tiny tails out of underflow).
+  let total = sign(peak);
+  let absTotal = 1;
+  for (const dir of [1, -1]) {
+    let prev = 1;
+    for (let k = 1; k < MAX_TERMS; k++) {
+      const m = peak + dir * k;
+      if (m < 0) break;
+      const rel = Math.exp(logTerm(m) - lp);
+      total += sign(m) * rel;
+      absTotal += rel;
+      cache.delete(m);
+      if (rel === 0) break;
+      const r = rel / prev;
+      // Past the peak the terms fall at least geometrically with ratio r (log-concave terms).
+      if (rel < EPS * absTotal && r < 1 && (rel * r) / (1 - r) < EPS * absTotal) break;
+      prev = rel;
+    }
+  }
+  return total * Math.exp(lp);
+}
+
+/**
+ * The index of the largest term of a unimodal sequence on [lo, hi], by bisection on the sign of
+ * f(m+1) - f(m). Ties between underflowed terms (both -Infinity) count as rising when
+ * `risingOnTies` (the underflow lies left of the peak) and as falling otherwise.
+ */
+function findPeak(f: (m: number) => number, lo: number, hi: number, risingOnTies: boolean): number {
+  const rising = (m: number): boolean => {
+    const a = f(m);
+    const b = f(m + 1);
+    if (a === -Infinity && b === -Infinity) return risingOnTies;
+    return b > a;
+  };
+  // Widen hi while the sequence still rises there (the 'upper' peak may lie further out).
+  while (rising(hi) && hi < 1e7) hi *= 2;
+  while (lo < hi) {
+    const mid = Math.floor((lo + hi) / 2);
+    if (rising(mid)) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
+}
+
+/**
+ * P(T' > t) for t > 0 and noncentrality -a (a > 0): the far tail, where Lenth's series would
+ * cancel. Writing S = sqrt(V/df) = e^u,
+ *
+ *   P = integral over u of  PhiBar(t e^u + a) * g(e^u) e^u du,
+ *
+ * with g the density of S. The integrand is log-concave in u (log PhiBar is concave and
+ * decreasing, t e^u + a is convex; the log of the chi part is df*u - df*e^{2u}/2 + const), so it
+ * has one peak; we find it by safeguarded Newton steps, take its curvature as the scale, and apply
+ * the trapezoid rule at a quarter of that scale until the integrand falls by e^-45 on both sides.
+ * For smooth, fast-decaying integrands on the whole line the trapezoid rule converges
+ * geometrically (Trefethen and Weideman 2014, SIAM Review 56, 385-458).
+ */
+export function smallUpperTail(t: number, df: number, a: number): number {
+  const nu = df;
+  const c = Math.log(2) + (nu / 2) * Math.log(nu / 2) - gammaln(nu / 2);
+  const F = (u: number): number => logPhiBar(t * Math.exp(u) + a) + nu * u - 0.5 * nu * Math.exp(2 * u) + c;
+  const dF = (u: number): number => {
+    const e = Math.exp(u);
+    return -t * e * hazard(t * e + a) + nu * (1 - e * e);
+  };
+  const d2F = (u: number): number => {
+    const e = Math.exp(u);
+    const z = t * e + a;
+    const M = hazard(z);
+    return -t * e * M + t * t * e * e * M * (z - M) - 2 * nu * e * e;
+  };
+  // dF(0) <= 0, dF -> nu > 0 as u -> -inf: bracket the peak in [lo, 0].
+  let lo = -1;
+  while (dF(lo) <= 0 && lo > -700) lo *= 2;
+  let hi = 0;
+  let u = 0.5 * (lo + hi);
+  for (let i = 0; i < 100; i++) {
+    const g = dF(u);
+    if (g > 0) lo = u;
+    else hi = u;
+    const h2 = d2F(u);
+    let next = u - g / h2;
+    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+    if (Math.abs(next - u) < 1e-13 * Math.max(1, Math.abs(u))) { u = next; break; }
+    u = next;
+  }
+  const fPeak = F(u);
+  const scale = 1 / Math.sqrt(-d2F(u));
+  const h = scale / 4;
+  let sum = 1;
+  for (const dir of [1, -1]) {
+    for (let k = 1; k < 100000; k++) {
+      const v = F(u + dir * k * h) - fPeak;
+      if (v < -45) break;
+      sum += Math.exp(v);
+    }
+  }
+  return h * sum * Math.exp(fPeak);
+}
+
+/** log of the upper normal tail, accurate for every z (continued fraction beyond z = 5). */
+function logPhiBar(z: number): number {
+  if (z < 5) return Math.log(normalCdf(-z));
+  return -0.5 * z * z - LN_SQRT_2PI + Math.log(millsRatio(z));
+}
+
+/** phi(z) / PhiBar(z), the hazard of the standard normal. */
+function hazard(z: number): number {
+  if (z < 5) return Math.exp(-0.5 * z * z - LN_SQRT_2PI) / normalCdf(-z);
+  return 1 / millsRatio(z);
+}
+
+/** Mills' ratio PhiBar(z) / phi(z) for z >= 5 by Lentz's continued fraction 1/(z+1/(z+2/(z+...))). */
+function millsRatio(z: number): number {
+  const tiny = 1e-300;
+  let f = z;
+  let C = z;
+  let D = 0;
+  for (let k = 1; k < 500; k++) {
+    D = z + k * D;
+    D = D === 0 ? tiny : 1 / D;
+    C = z + k / C;
+    if (C === 0) C = tiny;
+    const delta = C * D;
+    f *= delta;
+    if (Math.abs(delta - 1) < 1e-16) break;
+  }
+  return 1 / f;
 }

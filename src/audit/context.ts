@@ -1,0 +1,82 @@
+/**
+ * What every check needs, worked out once: the design (classified from the study facts, or as the
+ * reviewer stated it), the procedure the colleague used and its family, the confidence level and
+ * significance level, and the group summaries in subtraction order.
+ */
+import type { Recommendation } from '../engine/types.js';
+import type { ProcedureId } from '../stats/types.js';
+import { FINDING_CODES, type FindingCode } from './codes.js';
+import { familyOf, PROCEDURE_LABEL, type ProcedureFamily } from './procedure-names.js';
+import { orderedGroups } from './record.js';
+import type { AuditRecord, Finding, GroupSummary, NumberCheck, Reported } from './types.js';
+
+export interface AuditContext {
+  record: AuditRecord;
+  r: Reported;
+  rec: Recommendation | null;
+  design: { family: 'paired' | 'independent' | 'other'; kind?: string; label?: string } | null;
+  used?: ProcedureId;
+  usedFamily?: ProcedureFamily;
+  /** The procedure as a reader should see it in a message. */
+  usedLabel: string;
+  confidence: number;
+  alpha: number;
+  first?: GroupSummary;
+  second?: GroupSummary;
+  /** "<first> minus <second>" when the subtraction is stated. */
+  subtraction?: string;
+}
+
+export function makeContext(record: AuditRecord, rec: Recommendation | null): AuditContext {
+  const r = record.reported;
+  const used = r.procedure;
+  const usedFamily = used ? familyOf(used) : r.procedureFamily;
+  const design = rec
+    ? { family: rec.design.family, kind: rec.design.kind, label: rec.design.label }
+    : record.statedDesign
+      ? { ...record.statedDesign }
+      : null;
+  const confidence = r.confidence ?? (r.alpha ? 1 - r.alpha.value : 0.95);
+  const alpha = r.alpha?.value ?? 1 - confidence;
+  const [first, second] = orderedGroups(r);
+  const ctx: AuditContext = {
+    record,
+    r,
+    rec,
+    design,
+    usedLabel: used ? PROCEDURE_LABEL[used] : r.procedureText ? `"${r.procedureText}"` : 'the procedure used',
+    confidence,
+    alpha,
+  };
+  if (used) ctx.used = used;
+  if (usedFamily) ctx.usedFamily = usedFamily;
+  if (first) ctx.first = first;
+  if (second) ctx.second = second;
+  if (r.difference) ctx.subtraction = `${r.difference.first} minus ${r.difference.second}`;
+  return ctx;
+}
+
+/** Collects findings and number checks; severity always comes from the code catalogue. */
+export class Collector {
+  readonly findings: Finding[] = [];
+  readonly checks: NumberCheck[] = [];
+
+  add(code: FindingCode, message: string, fix: string, values?: Finding['values']): void {
+    const f: Finding = { code, severity: FINDING_CODES[code].severity, message, fix };
+    if (values) f.values = values;
+    this.findings.push(f);
+  }
+
+  has(code: FindingCode): boolean {
+    return this.findings.some((f) => f.code === code);
+  }
+
+  check(c: NumberCheck): void {
+    this.checks.push(c);
+  }
+}
+
+/** The number as written, for messages: `"0.0430"`. */
+export function q(text: string | undefined): string {
+  return text === undefined ? 'n/a' : `${text}`;
+}

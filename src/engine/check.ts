@@ -1,0 +1,243 @@
+/**
+ * The completeness check: enumerate every reachable answer path and prove that each ends in
+ * exactly one design rule, one procedure selection, one difference statement, one hypotheses
+ * entry and one scope entry (no none, no two). Choice questions branch on every value; number
+ * questions take representative values around each threshold a condition compares them with
+ * (also through derived facts); text questions take one stand-in value, plus blank when optional.
+ * Rules never matched, questions never asked and catalogue entries never used are reported too.
+ */
+import type { Problem } from '../problems.js';
+import type { AnswerValue, Answers } from './types.js';
+import { answerProblem } from './ask.js';
+import { leavesOf } from './conditions.js';
+import { decide, type Decision } from './decide.js';
+import { walkAnswers } from './facts.js';
+import type { Condition, Pos, QuestionDef, RuleBase } from './model.js';
+import type { Facts } from './conditions.js';
+
+export interface CheckReport {
+  files: number;
+  questions: number;
+  designs: number;
+  procedures: number;
+  rules: number;
+  /** Answer paths enumerated. */
+  paths: number;
+  /** Paths ending in each design kind, and in each primary procedure ('none' for no procedure). */
+  outcomes: Record<string, number>;
+  procedureCounts: Record<string, number>;
+  problems: Problem[];
+}
+
+/** Beyond this many paths the check stops and reports it (a rule base grown out of hand). */
+export const MAX_PATHS = 2_000_000;
+const EXAMPLES_PER_STAGE = 12;
+
+interface RatioThreshold {
+  num: string;
+  den: string;
+  t: number;
+}
+
+function allConditions(rb: RuleBase): Condition[] {
+  const out: (Condition | undefined)[] = [
+    ...rb.questions.map((q) => q.guard),
+    ...[...rb.predicates.values()].map((p) => p.when),
+    ...rb.rules.map((r) => r.when),
+    ...rb.selections.map((s) => s.when),
+    ...[...rb.conditions.values()].map((c) => c.when),
+    ...[...rb.differences, ...rb.hypotheses, ...rb.scope, ...rb.warnings, ...rb.cautions].map((s) => s.when),
+  ];
+  return out.filter((c): c is Condition => c !== undefined);
+}
+
+/** Thresholds per number fact, pushed through min/max to their arguments; ratios kept apart. */
+function thresholds(rb: RuleBase): { direct: Map<string, Set<number>>; ratios: RatioThreshold[] } {
+  const direct = new Map<string, Set<number>>();
+  const ratios: RatioThreshold[] = [];
+  const derived = new Map(rb.derived.map((d) => [d.id, d]));
+  const push = (fact: string, t: number): void => {
+    const d = derived.get(fact);
+    if (d?.op === 'ratio') ratios.push({ num: d.args[0], den: d.args[1], t });
+    else if (d) d.args.forEach((a) => push(a, t));
+    else {
+      if (!direct.has(fact)) direct.set(fact, new Set());
+      direct.get(fact)!.add(t);
+    }
+  };
+  for (const c of allConditions(rb)) {
+    for (const leaf of leavesOf(c, rb.predicates)) {
+      if (['gt', 'gte', 'lt', 'lte', 'equals'].includes(leaf.op) && typeof leaf.value === 'number') push(leaf.fact, leaf.value);
+    }
+  }
+  return { direct, ratios };
+}
+
+function around(t: number, integer: boolean): number[] {
+  if (integer) {
+    const lo = Math.floor(t);
+    const hi = Math.ceil(t);
+    return [lo - 1, lo, hi, hi + 1];
+  }
+  const d = Math.max(1e-6, Math.abs(t) * 1e-6);
+  return [t - d, t, t + d];
+}
+
+function candidates(q: QuestionDef, facts: Facts, th: ReturnType<typeof thresholds>): AnswerValue[] {
+  if (q.type === 'choice') return (q.choices ?? []).map((c) => c.value);
+  const blank: AnswerValue[] = q.optional ? [''] : [];
+  if (q.type === 'text') return ['(example)', ...blank];
+  const raw = new Set<number>();
+  for (const t of th.direct.get(q.id) ?? []) around(t, !!q.integer).forEach((v) => raw.add(v));
+  const num = (id: string): number | undefined => {
+    const v = facts.get(id);
+    return typeof v === 'number' ? v : undefined;
+  };
+  for (const r of th.ratios) {
+    const a = num(r.num);
+    const b = num(r.den);
+    if (r.den === q.id && a !== undefined && r.t !== 0) around(a / r.t, !!q.integer).forEach((v) => raw.add(v));
+    if (r.num === q.id && b !== undefined) around(b * r.t, !!q.integer).forEach((v) => raw.add(v));
+  }
+  const ok = [...raw].filter((v) => answerProblem(q, v) === null).sort((x, y) => x - y);
+  if (ok.length === 0) {
+    const typical = q.min === undefined ? 1 : q.minExclusive ? q.min + 1 : q.min;
+    ok.push(answerProblem(q, typical) === null ? typical : (q.max ?? 1));
+  }
+  return [...ok, ...blank];
+}
+
+type Stage = NonNullable<Decision['failed']>;
+
+export function checkRuleBase(rb: RuleBase): CheckReport {
+  const th = thresholds(rb);
+  const asked = new Set<string>();
+  const used = new Set<string>();
+  const outcomes: Record<string, number> = {};
+  const procedureCounts: Record<string, number> = {};
+  const failures = new Map<string, { stage: Stage; matched: { id: string; pos: Pos }[]; example: Answers; count: number }>();
+  let paths = 0;
+  let stopped = false;
+
+  const leaf = (answers: Answers, facts: Facts, askedHere: QuestionDef[]): void => {
+    paths++;
+    askedHere.forEach((q) => asked.add(q.id));
+    const d = decide(rb, facts);
+    const mark = (xs: { id: string }[], prefix: string): void => xs.forEach((x) => used.add(prefix + x.id));
+    mark(d.rules, 'rule:');
+    mark(d.selections, 'rule:');
+    mark(d.differences, 'rule:');
+    mark(d.hypotheses, 'rule:');
+    mark(d.scope, 'rule:');
+    mark(d.warnings, 'rule:');
+    mark(d.cautions, 'rule:');
+    d.conditions.forEach((c) => used.add('condition:' + c));
+    if (d.design) used.add('design:' + d.design.kind);
+    if (d.failed) {
+      const matched = (d[d.failed] as { id: string; pos: Pos }[]).map((x) => ({ id: x.id, pos: x.pos }));
+      const key = `${d.failed}|${matched.map((m) => m.id).join(',')}|${d.design?.kind ?? ''}`;
+      const f = failures.get(key);
+      if (f) f.count++;
+      else failures.set(key, { stage: d.failed, matched, example: { ...answers }, count: 1 });
+      return;
+    }
+    const sel = d.selections[0];
+    if (sel.procedure) used.add('procedure:' + sel.procedure);
+    if (sel.fallback) used.add('procedure:' + sel.fallback);
+    outcomes[d.design!.kind] = (outcomes[d.design!.kind] ?? 0) + 1;
+    const p = sel.procedure ?? 'none';
+    procedureCounts[p] = (procedureCounts[p] ?? 0) + 1;
+  };
+
+  const answers: Answers = {};
+  const dfs = (): void => {
+    if (stopped) return;
+    const w = walkAnswers(rb, answers, true);
+    if (w.next === null) return leaf(answers, w.facts, w.asked);
+    if (paths >= MAX_PATHS) {
+      stopped = true;
+      return;
+    }
+    const q = w.next;
+    for (const v of candidates(q, w.facts, th)) {
+      answers[q.id] = v;
+      dfs();
+    }
+    delete answers[q.id];
+  };
+  dfs();
+
+  const problems: Problem[] = [];
+  const first = rb.questions[0]?.pos ?? { file: rb.files[0] ?? rb.dir, line: 1, col: 1 };
+  if (stopped) problems.push({ ...first, code: 'incomplete', message: `more than ${MAX_PATHS} answer paths: the check stopped before covering them all` });
+  problems.push(...failureProblems(rb, failures));
+  for (const q of rb.questions) if (!asked.has(q.id)) problems.push({ ...q.pos, code: 'never-asked', message: `question '${q.id}' is never asked on any answer path`, hint: 'its ask_when never holds' });
+  const unreached = (prefix: string, xs: { id: string; pos: Pos }[], what: string): void => {
+    for (const x of xs) if (!used.has(prefix + x.id)) problems.push({ ...x.pos, code: 'unreachable', message: `${what} '${x.id}' never applies on any answer path` });
+  };
+  unreached('design:', [...rb.designs.values()].map((d) => ({ id: d.kind, pos: d.pos })), 'design');
+  unreached('rule:', rb.rules, 'rule');
+  unreached('rule:', rb.selections, 'procedure selection');
+  unreached('rule:', rb.differences, 'difference statement');
+  unreached('rule:', rb.hypotheses, 'hypotheses entry');
+  unreached('rule:', rb.scope, 'scope entry');
+  unreached('rule:', rb.warnings, 'warning');
+  unreached('rule:', rb.cautions, 'caution');
+  unreached('condition:', [...rb.conditions.values()], 'condition');
+  unreached('procedure:', [...rb.procedures.values()], 'procedure');
+  for (const p of rb.predicates.values()) {
+    const refs = allConditions(rb).some((c) => JSON.stringify(c, (k, v) => (k === 'pos' ? undefined : v)).includes(`"name":"${p.id}"`));
+    if (!refs) problems.push({ ...p.pos, code: 'unreachable', message: `predicate '${p.id}' is never referred to` });
+  }
+  return {
+    files: rb.files.length,
+    questions: rb.questions.length,
+    designs: rb.designs.size,
+    procedures: rb.procedures.size,
+    rules: rb.rules.length,
+    paths,
+    outcomes,
+    procedureCounts,
+    problems,
+  };
+}
+
+function describe(a: Answers): string {
+  return Object.entries(a)
+    .filter(([, v]) => v !== '(example)')
+    .map(([k, v]) => `${k}=${v === '' ? '(blank)' : String(v)}`)
+    .join(', ');
+}
+
+const STAGE_WORDS: Record<Stage, string> = {
+  rules: 'classification rule',
+  selections: 'procedure selection',
+  differences: 'difference statement',
+  hypotheses: 'hypotheses entry',
+  scope: 'scope entry',
+};
+
+function failureProblems(rb: RuleBase, failures: Map<string, { stage: Stage; matched: { id: string; pos: Pos }[]; example: Answers; count: number }>): Problem[] {
+  const out: Problem[] = [];
+  const perStage = new Map<Stage, number>();
+  for (const f of failures.values()) {
+    const n = perStage.get(f.stage) ?? 0;
+    perStage.set(f.stage, n + 1);
+    if (n >= EXAMPLES_PER_STAGE) continue;
+    const more = f.count > 1 ? ` (and ${f.count - 1} more path${f.count > 2 ? 's' : ''} like it)` : '';
+    const what = STAGE_WORDS[f.stage];
+    if (f.matched.length === 0) {
+      const section = { rules: rb.rules, selections: rb.selections, differences: rb.differences, hypotheses: rb.hypotheses, scope: rb.scope }[f.stage];
+      const pos = section[0]?.pos ?? { file: rb.files[0] ?? rb.dir, line: 1, col: 1 };
+      out.push({ ...pos, code: 'incomplete', message: `no ${what} holds for: ${describe(f.example)}${more}`, hint: `add a ${what} for these answers` });
+    } else {
+      const [a, ...rest] = f.matched;
+      const others = rest.map((r) => `'${r.id}' (${r.pos.file}:${r.pos.line})`).join(', ');
+      out.push({ ...a.pos, code: 'ambiguous', message: `${what}s '${a.id}' and ${others} all hold for: ${describe(f.example)}${more}`, hint: 'make their conditions exclusive' });
+    }
+  }
+  for (const [stage, n] of perStage) {
+    if (n > EXAMPLES_PER_STAGE) out.push({ file: rb.files[0] ?? rb.dir, code: stage === 'rules' ? 'incomplete' : 'incomplete', message: `${n - EXAMPLES_PER_STAGE} more distinct ${STAGE_WORDS[stage]} failures not listed` });
+  }
+  return out;
+}
