@@ -15,7 +15,7 @@ const PAIRED_PROCEDURES = ['paired-t', 'signed-rank', 'paired-equivalence'];
 export function checkDesign(ctx: AuditContext, out: Collector): void {
   const { design, r, rec } = ctx;
   const unit = String(ctx.record.answers?.unit ?? 'unit');
-  const recommended = rec?.procedure.id ? PROCEDURE_LABEL[rec.procedure.id] : undefined;
+  const recommended = ctx.recommended ? PROCEDURE_LABEL[ctx.recommended] : undefined;
   const instead = recommended ? `Re-run the analysis with the ${recommended}` : 'Re-run the analysis with a procedure for this design';
 
   if (!r.procedureText) {

@@ -23,7 +23,8 @@ export function checkEquivalence(ctx: AuditContext, out: Collector): void {
   const isTost = ctx.used?.endsWith('equivalence') || eq !== undefined;
   const a = ctx.alpha;
   const claimsEq = r.claim === 'equivalent' || eq?.decision === 'equivalent';
-  const margin = eq?.margin ? rangeOf(eq.margin) : ctx.rec?.procedure.margin !== undefined ? ([ctx.rec.procedure.margin, ctx.rec.procedure.margin] as [number, number]) : undefined;
+  // A margin is fixed in advance, not measured: its written value is exact.
+  const margin = eq?.margin ? rangeOf(eq.margin, true) : ctx.rec?.procedure.margin !== undefined ? ([ctx.rec.procedure.margin, ctx.rec.procedure.margin] as [number, number]) : undefined;
   if (!isTost) {
     if ((r.claim === 'no-difference' || r.claim === 'equivalent') && (!r.pValue || pRangeReported(r.pValue)[1] > a || r.claim === 'equivalent')) {
       out.add('absence-as-equivalence',

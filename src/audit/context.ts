@@ -25,6 +25,22 @@ export interface AuditContext {
   second?: GroupSummary;
   /** "<first> minus <second>" when the subtraction is stated. */
   subtraction?: string;
+  /**
+   * The procedure to compare with: the rule base's recommendation, or, when the reviewer only
+   * states the design, the default for that family (paired t, Welch t, the crossover analysis).
+   */
+  recommended?: ProcedureId;
+  /** True when `recommended` is a default for a stated design, not the rule base's choice. */
+  recommendedByDefault?: boolean;
+}
+
+/** Defaults for a design stated without answers (binary outcomes cannot be told apart: none). */
+function defaultFor(design: AuditContext['design'], record: AuditRecord): ProcedureId | undefined {
+  if (!design || record.answers?.outcome_type === 'binary') return undefined;
+  if (design.kind === 'crossover') return 'crossover-t';
+  if (design.family === 'paired') return 'paired-t';
+  if (design.family === 'independent') return 'welch-t';
+  return undefined;
 }
 
 export function makeContext(record: AuditRecord, rec: Recommendation | null): AuditContext {
@@ -53,6 +69,14 @@ export function makeContext(record: AuditRecord, rec: Recommendation | null): Au
   if (first) ctx.first = first;
   if (second) ctx.second = second;
   if (r.difference) ctx.subtraction = `${r.difference.first} minus ${r.difference.second}`;
+  if (rec?.procedure.id) ctx.recommended = rec.procedure.id;
+  else if (!rec) {
+    const d = defaultFor(design, record);
+    if (d) {
+      ctx.recommended = d;
+      ctx.recommendedByDefault = true;
+    }
+  }
   return ctx;
 }
 

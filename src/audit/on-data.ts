@@ -40,7 +40,7 @@ export function auditOnData(path: string, shown: string, ctx: AuditContext, out:
   const colleague = ctx.used
     ? runSide(ctx.used, colleagueInput(ctx.used, mapping, account, prepared), optionsFor(ctx, 'colleague'), 'as the colleague ran it')
     : { result: null, why: 'the record does not name a procedure that tandem can run' };
-  const recId = ctx.rec?.procedure.id ?? null;
+  const recId = ctx.recommended ?? null;
   const recommended = recId
     ? runSide(recId, prepared && procedureDesign(recId) === prepared.input.kind ? prepared.input : undefined, optionsFor(ctx, 'recommended'), 'as recommended')
     : null;
@@ -48,7 +48,7 @@ export function auditOnData(path: string, shown: string, ctx: AuditContext, out:
     file: shown,
     pairing: [...account.lines, ...(prepared?.warnings ?? [])],
     colleague: { label: ctx.used ? PROCEDURE_LABEL[ctx.used] : ctx.usedLabel, ...colleague },
-    recommended: recId ? { label: PROCEDURE_LABEL[recId], ...recommended! } : null,
+    recommended: recId ? { label: `${PROCEDURE_LABEL[recId]}${ctx.recommendedByDefault ? ' (default for the stated design)' : ''}`, ...recommended! } : null,
   };
   checkData(ctx, out, account, comparison);
   return { comparison, account };
@@ -84,7 +84,8 @@ function optionsFor(ctx: AuditContext, side: 'colleague' | 'recommended'): Parti
   if (side === 'colleague') {
     return { alternative: r.alternative ?? 'two-sided', confidence: r.confidence ?? 0.95, ...(margin !== undefined ? { margin } : {}) };
   }
-  const p = ctx.rec!.procedure;
+  const p = ctx.rec?.procedure;
+  if (!p) return { alternative: r.alternative ?? 'two-sided', confidence: r.confidence ?? 0.95, ...(margin !== undefined ? { margin } : {}) };
   return { alternative: p.alternative, confidence: p.confidence ?? 0.95, ...(margin !== undefined ? { margin } : {}) };
 }
 

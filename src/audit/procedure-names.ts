@@ -40,6 +40,7 @@ const PATTERNS: Pattern[] = [
 export function normalizeName(name: string): string {
   return name
     .toLowerCase()
+    .replace(/[’']s\b/g, '')
     .replace(/[’']/g, '')
     .replace(/[^a-z0-9]+/g, ' ')
     .trim();

@@ -174,8 +174,16 @@ export class ColumnCollector {
     if (this.problems.length < MAX_LISTED_PROBLEMS) this.problems.push(p);
   }
 
-  private grow(): void {
-    this.capacity *= 2;
+  /**
+   * Makes room for about `rows` rows at once (the plain scan estimates the count from the file
+   * size), so a large file does not pass through a series of doublings and copies.
+   */
+  reserve(rows: number): void {
+    if (rows > this.capacity) this.grow(rows);
+  }
+
+  private grow(to = this.capacity * 2): void {
+    this.capacity = to;
     const lines = new Int32Array(this.capacity);
     lines.set(this.lines);
     this.lines = lines;

@@ -17,7 +17,8 @@ export function isSpace(c: number): boolean {
 }
 
 export class LevelPool {
-  private chars: Uint16Array = new Uint16Array(1 << 12);
+  /** One byte per character while every character is below 256 (ids are usually ASCII). */
+  private chars: Uint8Array | Uint16Array = new Uint8Array(1 << 12);
   private used = 0;
   /** Start of value i in `chars` is offsets[i]; its end is offsets[i + 1]. */
   private offsets: Int32Array = new Int32Array(1 << 10);
@@ -42,7 +43,7 @@ export class LevelPool {
     const code = this.count;
     this.append(text, start, end);
     this.table[p] = code;
-    if (this.count * 2 > this.mask) this.rehash();
+    if (this.count * 4 > this.mask * 3) this.rehash();
     return code;
   }
 
@@ -77,8 +78,12 @@ export class LevelPool {
 
   private append(text: string, start: number, end: number): void {
     const len = end - start;
-    while (this.used + len > this.chars.length) this.chars = growU16(this.chars);
-    for (let k = 0; k < len; k++) this.chars[this.used + k] = text.charCodeAt(start + k);
+    if (this.used + len > this.chars.length) this.chars = grow(this.chars, this.used + len, this.chars instanceof Uint16Array);
+    for (let k = 0; k < len; k++) {
+      const c = text.charCodeAt(start + k);
+      if (c > 255 && this.chars instanceof Uint8Array) this.chars = grow(this.chars, this.chars.length, true);
+      this.chars[this.used + k] = c;
+    }
     this.used += len;
     if (this.count + 2 > this.offsets.length) this.offsets = growI32(this.offsets);
     this.count++;
@@ -101,8 +106,12 @@ export class LevelPool {
   }
 }
 
-function growU16(a: Uint16Array): Uint16Array {
-  const b = new Uint16Array(a.length * 2);
+/** A larger (or wider) copy: room for at least `need` characters, 16 bits each when `wide`. */
+function grow(a: Uint8Array | Uint16Array, need: number, wide: boolean): Uint8Array | Uint16Array {
+  let size = a.length;
+  while (size < need) size *= 2;
+  if (size === a.length && (a instanceof Uint16Array) === wide) return a;
+  const b = wide ? new Uint16Array(size) : new Uint8Array(size);
   b.set(a);
   return b;
 }

@@ -7,7 +7,7 @@
 import { InputError } from '../errors.js';
 import { repeatedIds } from './levels.js';
 import type { OutcomeSpec, PreparedData, Table } from './types.js';
-import { category, toArray, valueReaders } from './values.js';
+import { category, numberArray, truncate, valueReaders } from './values.js';
 
 type Wide = { layout: 'wide'; first: string; second: string; id?: string; pairBy: 'id' | 'row-order' };
 
@@ -27,8 +27,8 @@ export function prepareWide(table: Table, m: Wide, outcome: OutcomeSpec): Prepar
   }
   const [a, b] = valueReaders(table, [m.first, m.second], outcome);
   const n = table.rows;
-  const first = new Float64Array(n);
-  const second = new Float64Array(n);
+  const first = numberArray(n);
+  const second = numberArray(n);
   let pairs = 0;
   let noId = 0;
   let onlyFirst = 0;
@@ -81,7 +81,7 @@ export function prepareWide(table: Table, m: Wide, outcome: OutcomeSpec): Prepar
   if (m.pairBy === 'row-order') notes.push('pairs formed by row: each row is taken as one unit, as requested');
   else notes.push(`pairs identified by '${m.id}', one row per unit`);
   return {
-    input: { kind: 'paired', first: toArray(first, pairs), second: toArray(second, pairs) },
+    input: { kind: 'paired', first: truncate(first, pairs), second: truncate(second, pairs) },
     layout: 'wide',
     sides: { first: m.first, second: m.second },
     counts: { rows: table.rows, pairs, dropped },

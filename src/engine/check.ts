@@ -9,7 +9,7 @@
 import type { Problem } from '../problems.js';
 import type { AnswerValue, Answers } from './types.js';
 import { answerProblem } from './ask.js';
-import { leavesOf } from './conditions.js';
+import { factsOf, leavesOf } from './conditions.js';
 import { decide, type Decision } from './decide.js';
 import { walkAnswers } from './facts.js';
 import type { Condition, Pos, QuestionDef, RuleBase } from './model.js';
@@ -109,8 +109,37 @@ function candidates(q: QuestionDef, facts: Facts, th: ReturnType<typeof threshol
 
 type Stage = NonNullable<Decision['failed']>;
 
+/**
+ * The facts that can change which question comes next or which exclusive entry holds (rules,
+ * selections, differences, hypotheses, scope), followed through predicates and derived facts.
+ * A question outside this set (a label, the people/safety question, a margin) changes only
+ * wording, warnings, cautions or the conditions listed, so its values are rotated across paths
+ * instead of multiplied: every value still appears, and the proof of "exactly one" is unchanged.
+ */
+export function decidingFacts(rb: RuleBase): Set<string> {
+  const conds: (Condition | undefined)[] = [
+    ...rb.questions.map((q) => q.guard),
+    ...rb.rules.map((r) => r.when),
+    ...rb.selections.map((x) => x.when),
+    ...[...rb.differences, ...rb.hypotheses, ...rb.scope].map((x) => x.when),
+  ];
+  const out = new Set<string>();
+  for (const c of conds) if (c) for (const f of factsOf(c, rb.predicates)) out.add(f);
+  const derived = new Map(rb.derived.map((d) => [d.id, d]));
+  const expand = (f: string): void => derived.get(f)?.args.forEach((a) => {
+    if (!out.has(a)) {
+      out.add(a);
+      expand(a);
+    }
+  });
+  [...out].forEach(expand);
+  return out;
+}
+
 export function checkRuleBase(rb: RuleBase): CheckReport {
   const th = thresholds(rb);
+  const deciding = decidingFacts(rb);
+  const rotation = new Map<string, number>();
   const asked = new Set<string>();
   const used = new Set<string>();
   const outcomes: Record<string, number> = {};
@@ -159,7 +188,13 @@ export function checkRuleBase(rb: RuleBase): CheckReport {
       return;
     }
     const q = w.next;
-    for (const v of candidates(q, w.facts, th)) {
+    let values = candidates(q, w.facts, th);
+    if (!deciding.has(q.id)) {
+      const k = rotation.get(q.id) ?? 0;
+      rotation.set(q.id, k + 1);
+      values = [values[k % values.length]];
+    }
+    for (const v of values) {
       answers[q.id] = v;
       dfs();
     }

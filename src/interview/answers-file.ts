@@ -49,7 +49,8 @@ export function loadAnswersFile(path: string, rb: RuleBaseView): AnswersFile {
   try {
     text = readFileSync(path, 'utf8');
   } catch (err) {
-    const why = (err as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : err instanceof Error ? err.message : String(err);
+    const code = (err as NodeJS.ErrnoException).code;
+    const why = code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'it is a folder' : err instanceof Error ? err.message : String(err);
     throw new InputError(`cannot read the answers file ${path}: ${why}`);
   }
   return parseAnswersText(text, path, rb);

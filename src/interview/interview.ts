@@ -8,7 +8,8 @@
  * highlighted; after any change `next` is walked again from the start, so answers to questions
  * that no longer apply are dropped, and questions that still apply are asked again with the
  * earlier answer as the suggestion (Enter keeps it). Initial answers (from an answers file) are
- * kept and never asked; going back stops at the first question asked in this session.
+ * kept and never asked, and returned even when they do not apply (so the caller can say so);
+ * going back stops at the first question asked in this session.
  *
  * Help: the first sentence of a question's help is shown dim under it; "? Explain this question"
  * (or typing `?`) shows the whole explanation and an example of each answer, then asks again.
@@ -47,14 +48,16 @@ export async function runInterview(opts: InterviewOptions): Promise<Answers> {
   const confirmed = new Set<string>();
   const has = (o: Answers, id: string): boolean => Object.prototype.hasOwnProperty.call(o, id);
   try {
-    const ask = opts.ask ?? (await (await import('./inquirer-adapter.js')).inquirerAdapter(opts.io));
+    // inquirer is loaded only once a question must actually be asked.
+    let ask = opts.ask;
     for (;;) {
       const w = walk(opts.next, (id) => (has(fixed, id) ? fixed[id] : confirmed.has(id) ? given[id] : undefined));
       const asked = w.order.filter((id) => confirmed.has(id));
       // Confirmations that fell off the path no longer count; the value stays as a suggestion.
       for (const id of [...confirmed]) if (!asked.includes(id)) confirmed.delete(id);
-      if (w.pending === null) return w.used;
+      if (w.pending === null) return withInitial(w.used, fixed);
       const q = w.pending;
+      ask ??= await (await import('./inquirer-adapter.js')).inquirerAdapter(opts.io);
       const step = await askQuestion(ask, q, { number: asked.length + 1, canGoBack: asked.length > 0, previous: has(given, q.id) ? given[q.id] : undefined });
       if (step.kind === 'back') {
         confirmed.delete(asked[asked.length - 1]);
@@ -66,6 +69,16 @@ export async function runInterview(opts: InterviewOptions): Promise<Answers> {
   } catch (err) {
     throw toCancelled(err);
   }
+}
+
+/**
+ * The answers on the path, then any initial answers off the path: those are kept as given (the
+ * caller may say they do not apply), while session answers that no longer apply are dropped.
+ */
+function withInitial(used: Answers, fixed: Answers): Answers {
+  const out: Answers = { ...used };
+  for (const [id, v] of Object.entries(fixed)) if (!Object.prototype.hasOwnProperty.call(out, id)) out[id] = v;
+  return out;
 }
 
 interface AskContext {
@@ -146,8 +159,14 @@ function inputHint(q: Question, canGoBack: boolean): string {
 /** The first sentence of a help text, for the dim line under the question. */
 export function firstSentence(text: string): string {
   const flat = text.replace(/\s+/g, ' ').trim();
-  const m = /^(.+?[.!?])(\s|$)/.exec(flat);
-  return m ? m[1] : flat;
+  const end = /[.!?](?=\s|$)/g;
+  for (let m = end.exec(flat); m; m = end.exec(flat)) {
+    const head = flat.slice(0, m.index + 1);
+    // "e.g." and "i.e." end no sentence (and neither do "etc." or "vs." inside one).
+    if (/(^|[\s(])(e\.g|i\.e|etc|vs|cf|approx)\.$/i.test(head)) continue;
+    return head;
+  }
+  return flat;
 }
 
 /** The whole explanation of a question: its help and, for choices, each answer with its example. */

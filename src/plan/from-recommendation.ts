@@ -92,10 +92,13 @@ export function planFromRecommendation(rec: Recommendation, opts: PlanOptions = 
     ...(outcomeUnit ? { outcomeUnit } : {}),
     first: text(a, 'first_label') ?? 'first condition',
     second: text(a, 'second_label') ?? 'second condition',
-    // The rule base asks which result counts as the event; '1' (data coded 0/1) otherwise.
-    ...(facts.binary ? { event: text(a, 'event') ?? '1' } : {}),
+    // Binary outcomes: the result that counts as the event, when the interview named it (without
+    // it the data layer recognises 0/1, yes/no and true/false, and asks otherwise).
+    ...(facts.binary && text(a, 'event') ? { event: text(a, 'event') } : {}),
   };
-  const margin = facts.equivalence ? rec.procedure.margin ?? numberAnswer(a, 'margin') : undefined;
+  // A margin given by the recommendation is kept whatever the procedure (binary procedures judge
+  // equivalence by their interval); an equivalence procedure may also take it from the answers.
+  const margin = rec.procedure.margin ?? (facts.equivalence ? numberAnswer(a, 'margin') : undefined);
   const plan: Plan = {
     format: PLAN_FORMAT,
     title: opts.title?.trim() || `${study.first} versus ${study.second}: ${study.outcome}`,
@@ -107,7 +110,7 @@ export function planFromRecommendation(rec: Recommendation, opts: PlanOptions = 
     procedure: {
       id,
       alternative: rec.procedure.alternative,
-      confidence: 0.95,
+      confidence: rec.procedure.confidence ?? 0.95,
       nullValue: 0,
       ...(margin !== undefined ? { margin } : {}),
     },

@@ -34,8 +34,13 @@ export function semanticFindings(plan: Plan): PlanFinding[] {
   if (facts.equivalence && plan.procedure.margin === undefined) {
     add('missing-key', ['procedure'], `procedure '${id}' is an equivalence test and needs procedure.margin`, 'a positive number in the outcome unit: equivalent means the difference lies within [-margin, +margin]');
   }
-  if (!facts.equivalence && plan.procedure.margin !== undefined) {
-    add('unknown-key', ['procedure', 'margin'], `procedure.margin is only used by the equivalence procedures (paired-equivalence, welch-equivalence), not by '${id}'`, 'remove margin, or choose an equivalence procedure');
+  const margin = plan.procedure.margin;
+  if (margin !== undefined && !facts.equivalence && !facts.binary) {
+    add('unknown-key', ['procedure', 'margin'], `procedure.margin is only used by the equivalence procedures (paired-equivalence, welch-equivalence) and, for an equivalence aim, by the binary ones; not by '${id}'`, 'remove margin, or choose an equivalence procedure');
+  }
+  // Binary procedures judge equivalence by their interval for a difference of proportions.
+  if (margin !== undefined && facts.binary && margin >= 1) {
+    add('unknown-value', ['procedure', 'margin'], `procedure.margin ${margin} cannot bound a difference of two proportions`, 'a proportion between 0 and 1, e.g. 0.05 for five percentage points');
   }
 
   if (plan.sensitivity) {
@@ -63,9 +68,6 @@ export function semanticFindings(plan: Plan): PlanFinding[] {
     add('unknown-value', ['missingPolicy'], `missingPolicy '${plan.missingPolicy}' does not fit a ${family} design`, `use ${policy}`);
   }
 
-  if (facts.binary && plan.study.event === undefined) {
-    add('missing-key', ['study'], `procedure '${id}' reads a binary outcome and needs study.event`, 'the data value that counts as the event, e.g. "1" or "yes"');
-  }
   if (!facts.binary && plan.study.event !== undefined) {
     add('unknown-key', ['study', 'event'], `study.event is only used by binary procedures (mcnemar, two-proportions), not by '${id}'`, 'remove event, or choose a binary procedure');
   }
@@ -107,7 +109,7 @@ function checkColumns(plan: Plan, add: Add): void {
       if (d.firstLevel === d.secondLevel) add('unknown-value', ['data', 'secondLevel'], `data.firstLevel and data.secondLevel are both '${d.firstLevel}'`, 'the two values of the condition column');
       break;
     case 'groups':
-      distinct(['group', 'value']);
+      distinct(['id', 'group', 'value']);
       if (d.firstLevel === d.secondLevel) add('unknown-value', ['data', 'secondLevel'], `data.firstLevel and data.secondLevel are both '${d.firstLevel}'`, 'the two values of the group column');
       break;
     case 'columns':

@@ -13,8 +13,11 @@ export type DataMapping =
   | { layout: 'wide'; first: string; second: string; id?: string; pairBy: 'id' | 'row-order' }
   /** Paired, one row per measurement: id, condition and value columns. */
   | { layout: 'long'; id: string; condition: string; value: string; firstLevel: string; secondLevel: string }
-  /** Independent: a group column and a value column. */
-  | { layout: 'groups'; group: string; value: string; firstLevel: string; secondLevel: string }
+  /**
+   * Independent: a group column and a value column; an optional id column lets the data layer
+   * catch a unit measured more than once (pseudo-replication).
+   */
+  | { layout: 'groups'; group: string; value: string; firstLevel: string; secondLevel: string; id?: string }
   /** Independent: two columns, possibly of different lengths (blank cells). */
   | { layout: 'columns'; first: string; second: string }
   /** 2x2 crossover: one row per subject. */

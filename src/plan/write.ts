@@ -27,13 +27,16 @@ const ORDER = {
 } as const;
 
 const COMMENTS: Record<string, string> = {
-  study: ' What is measured, on what, under which two conditions. Differences are first minus second.',
+  study: [
+    ' What is measured, on what, under which two conditions. Differences are first minus second.',
+    ' event (binary outcomes only): the data value that counts as the event, e.g. "cracked" or "1".',
+  ].join('\n'),
   design: ' How the data were produced (from the interview answers) and why that is the design.',
   difference: ' The direction of subtraction, in words.',
   procedure: [
     ' The declared analysis, fixed before seeing the data.',
     ' alternative: two-sided, greater or less (for first minus second);',
-    ' margin: equivalence procedures only.',
+    ' margin: equivalence aims only (equivalent: the difference lies within -margin to +margin).',
   ].join('\n'),
   sensitivity: [
     ' Sensitivity analysis declared now: reported beside the main result, never swapped in after',

@@ -82,6 +82,8 @@ function histogram(values: ArrayLike<number>, width: number, height: number, pos
   for (let i = 0; i < values.length; i++) if (Number.isFinite(values[i])) counts[pos(values[i])]++;
   let max = 0;
   for (const c of counts) if (c > max) max = c;
+  // Few values: one '#' per value, so the plot shows exact counts rather than stretched bars.
+  height = Math.max(1, Math.min(height, max));
   const rows: string[] = [];
   for (let level = height; level >= 1; level--) {
     let row = '';
@@ -98,8 +100,6 @@ function histogram(values: ArrayLike<number>, width: number, height: number, pos
 
 function axis(width: number, pos: (x: number) => number, reference: number | undefined): string {
   const a = Array.from({ length: width }, () => '-');
-  a[0] = '+';
-  a[width - 1] = '+';
   if (reference !== undefined && Number.isFinite(reference)) a[pos(reference)] = '|';
   return '+' + a.join('');
 }

@@ -58,7 +58,10 @@ function alternativeWords(rec: Recommendation): string {
   const first = answer(rec, 'first_label') ?? 'the first condition';
   const unit = answer(rec, 'outcome_unit');
   const p = rec.procedure;
-  if (p.margin !== undefined) return `Aim: equivalence, the mean difference lies between -${p.margin} and +${p.margin}${unit ? ` ${unit}` : ''}`;
+  if (p.margin !== undefined) {
+    const binary = p.id !== null && PROCEDURES[p.id].binary;
+    return `Aim: equivalence, the ${binary ? 'difference of proportions' : `mean difference`} lies between -${p.margin} and +${p.margin}${unit && !binary ? ` ${unit}` : ''}`;
+  }
   if (p.alternative === 'greater') return `Alternative: one-sided, ${first} higher (the difference is above the null value)`;
   if (p.alternative === 'less') return `Alternative: one-sided, ${first} lower (the difference is below the null value)`;
   return 'Alternative: two-sided, a difference in either direction';
@@ -105,8 +108,17 @@ export function recommendationSections(rec: Recommendation, opts: RenderOptions 
   s.push({ title: 'Design', tone: 'plain', blocks: [para(`${familyWords}: ${d.label} [${d.kind}]`)] });
   if (d.reasons.length) s.push({ title: 'Why', tone: 'plain', blocks: [list(d.reasons)] });
   if (!other && p.id !== null) {
-    const procLines = [`${p.name} [${p.id}]`, `Estimate: ${p.estimate}`, alternativeWords(rec)];
-    s.push({ title: 'Procedure', tone: 'plain', blocks: [para(...procLines)] });
+    const procLines = [
+      `${p.name} [${p.id}]`,
+      ...(p.applies ? [`When it applies: ${p.applies}`] : []),
+      `Estimate: ${p.estimate}`,
+      alternativeWords(rec),
+      `Confidence level of the interval: ${Number(((p.confidence ?? 0.95) * 100).toPrecision(6))}%`,
+    ];
+    const blocks = [para(...procLines)];
+    if (p.notes?.length) blocks.push(list(p.notes));
+    if (p.references?.length) blocks.push(para(`Sources: ${p.references.join('; ')}`));
+    s.push({ title: 'Procedure', tone: 'plain', blocks });
     const sens = p.fallback
       ? [para(`${procedureName(p.fallback)} [${p.fallback}]`, ...(p.fallbackWhy ? [p.fallbackWhy] : [])), para('Fixed now and reported beside the main result whatever the data show; it is not a switch to make after looking at the data.')]
       : [para('None for this procedure.')];
@@ -114,9 +126,10 @@ export function recommendationSections(rec: Recommendation, opts: RenderOptions 
     s.push({ title: 'How n and df are counted', tone: 'plain', blocks: [para(p.nCounting, p.df)] });
     s.push({ title: 'Direction of subtraction', tone: 'plain', blocks: [para(rec.difference)] });
     const h = rec.hypotheses;
+    // The symbols may carry their own "H0:" / "Ha:" prefix; the labels here are words.
     const rows: [string, string, string][] = [
-      ['H0', h.nullSymbols, h.nullWords],
-      ['H1', h.alternativeSymbols, h.alternativeWords],
+      ['Null', h.nullSymbols, h.nullWords],
+      ['Alternative', h.alternativeSymbols, h.alternativeWords],
     ];
     s.push({ title: 'Hypotheses', tone: 'plain', blocks: [{ kind: 'hypotheses', lines: [], rows }] });
   }
@@ -169,8 +182,8 @@ export function renderRecommendationText(rec: Recommendation, style: Style, opts
     out.push(style.bold(tone(sec.title.toUpperCase())));
     for (const b of sec.blocks) {
       for (const [label, symbols, words] of b.rows ?? []) {
-        out.push(`  ${label}: ${symbols}`);
-        out.push(...wrap(words, '      ', '      '));
+        out.push(`  ${`${label}:`.padEnd(13)}${symbols}`);
+        out.push(...wrap(words, '               ', '               '));
       }
       for (const l of b.lines) {
         if (b.kind === 'list') out.push(...wrap(l, '  - ', '    '));
@@ -199,7 +212,7 @@ export function renderRecommendationMarkdown(rec: Recommendation, opts: RenderOp
     out.push(`## ${sec.title}`, '');
     for (const b of sec.blocks) {
       if (b.kind === 'commands') out.push('```sh', ...b.lines, '```');
-      else if (b.kind === 'hypotheses') out.push(...(b.rows ?? []).map(([label, symbols, words]) => `- ${label}: ${code(symbols)}: ${escapeMarkdown(words)}`));
+      else if (b.kind === 'hypotheses') out.push(...(b.rows ?? []).map(([label, symbols, words]) => `- ${label}: ${code(symbols)}  \n  ${escapeMarkdown(words)}`));
       else if (b.kind === 'list') out.push(...b.lines.map((l) => `- ${escapeMarkdown(l)}`));
       else if (sec.tone === 'bad') out.push(b.lines.map((l) => `> **${escapeMarkdown(l)}**`).join('\n>\n'));
       else out.push(b.lines.map(escapeMarkdown).join('  \n'));

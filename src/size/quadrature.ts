@@ -54,6 +54,9 @@ function refine(f: (x: number) => number, a: number, b: number, whole: number, t
   const m = 0.5 * (a + b);
   const left = rule(f, a, m);
   const right = rule(f, m, b);
-  if (Math.abs(left + right - whole) <= tol || depth >= 30) return left + right;
+  // Stop at the tolerance, or when the two estimates agree to rounding (a smaller absolute
+  // tolerance would only chase rounding noise).
+  const both = left + right;
+  if (Math.abs(both - whole) <= Math.max(tol, 1e-15 * Math.abs(both)) || depth >= 40) return both;
   return refine(f, a, m, left, tol / 2, depth + 1) + refine(f, m, b, right, tol / 2, depth + 1);
 }

@@ -31,9 +31,8 @@
  * pi_hat = -0.3333, s_h = 0.4082, se = 0.3333, t = 7.0 on 4 df.
  */
 import { StatsError } from '../errors.js';
-import { intervalNote } from './paired-t.js';
 import { checkCount, checkFinite, isRoundingLevel, maxAbs, scaleFor, show, summarize, type Summary } from './sample.js';
-import { tInference } from './t-inference.js';
+import { intervalNote, tInference } from './t-inference.js';
 import type { ProcedureInput, ProcedureOptions, TestResult } from './types.js';
 
 type CrossoverInput = Extract<ProcedureInput, { kind: 'crossover' }>;

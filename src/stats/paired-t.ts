@@ -11,13 +11,13 @@
  * (effect-size.ts). Conditions: the differences are independent across pairs and roughly normal
  * (or n large enough for the mean to be); the spread within each condition does not matter.
  *
- * Worked example (Student 1908, p. 20, the Cushny and Peebles sleep data): second minus first
+ * Worked example (Student 1908, the Cushny and Peebles 1905 sleep data): second minus first
  * differences 1.2, 2.4, 1.3, 1.3, 0, 1, 1.8, 0.8, 4.6, 1.4 give dbar = 1.58, s_d = 1.2300,
  * se = 0.38896, t = 4.0621 on 9 df, two-sided p = 0.002833, 95% interval [0.7001, 2.4599].
  */
 import { dzEffect } from './effect-size.js';
 import { checkCount, checkFinite, checkSameLength, isRoundingLevel, maxAbs, noVariation, scaleFor, summarize, type Summary } from './sample.js';
-import { tInference } from './t-inference.js';
+import { intervalNote, tInference } from './t-inference.js';
 import type { ProcedureOptions, TestResult } from './types.js';
 
 /** The paired differences in scaled units, with their summary; shared with paired equivalence. */
@@ -83,11 +83,4 @@ export function pairedDetails(c: PairedCore, se: number): TestResult['details'] 
     se,
     correlation: r === null ? null : Math.max(-1, Math.min(1, r)),
   };
-}
-
-/** One-sided alternatives report a one-sided confidence bound; say so. */
-export function intervalNote(alternative: ProcedureOptions['alternative']): string[] {
-  if (alternative === 'greater') return ['one-sided alternative (greater): the interval is a lower confidence bound; its upper end is +Infinity'];
-  if (alternative === 'less') return ['one-sided alternative (less): the interval is an upper confidence bound; its lower end is -Infinity'];
-  return [];
 }

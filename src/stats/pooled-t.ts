@@ -17,9 +17,8 @@
  */
 import { StatsError } from '../errors.js';
 import { hedgesG } from './effect-size.js';
-import { intervalNote } from './paired-t.js';
 import { constantGroupNotes, independentCore, type IndependentCore } from './sample.js';
-import { tInference } from './t-inference.js';
+import { intervalNote, tInference } from './t-inference.js';
 import type { ProcedureOptions, TestResult } from './types.js';
 import { independentDetails } from './welch-t.js';
 

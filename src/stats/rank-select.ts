@@ -3,88 +3,79 @@
  *
  * The signed-rank estimate needs order statistics of the M = n(n+1)/2 Walsh averages
  * (d_i + d_j)/2, i <= j; the rank-sum estimate needs those of the m n differences x_i - y_j.
- * For 1,000,000 pairs M is 5e11, far too many to list. Both are "sorted matrices": with the data
- * sorted, row i is non-decreasing along j and column j is non-decreasing along i. So the number
- * of entries below any value t is counted in O(rows + cols) by one pointer walking down the
- * columns as the rows go up (the boundary in row i+1 is never right of the one in row i).
+ * For 1,000,000 pairs M is 5e11, far too many to list. Both are sums r_i + c_j of two ascending
+ * arrays (Walsh: r = c = d/2, upper triangle j >= i; shift: r = x, c = -y read from its top), so
+ * every row and every column is sorted, and the number of entries below any value t is counted in
+ * O(rows + cols) by one pointer walking down the columns as the rows go up.
  *
- * Selection keeps, per row, the range of columns that may still hold the k-th entry (Monahan
- * 1984, "Algorithm 616: fast computation of the Hodges-Lehmann location estimator", ACM TOMS
+ * Selection keeps, per row, the band of columns that may still hold the k-th entry (Monahan 1984,
+ * "Algorithm 616: fast computation of the Hodges-Lehmann location estimator", ACM TOMS
  * 10:265-270; Johnson and Mizoguchi 1978, "Selecting the Kth element in X + Y and
  * X1 + X2 + ... + Xm", SIAM J. Computing 7:147-153). Each round draws a random sample of the
  * active entries and takes two sample order statistics that bracket the target rank (Floyd and
- * Rivest 1975, "Expected time bounds for selection", CACM 18:165-172), counts below both with
- * the pointer walk, and narrows every row to the side or the bracket holding the target. With a
- * sample of 4096 a round keeps about 5% of the active entries, so 5e11 shrinks to the ~1e6 that
- * are then listed and selected directly in about five rounds: O(n log n) in all. The draws come
- * from a fixed-seed generator, so results are reproducible; they never depend on the draws, only
- * the running time does. Every round removes at least its pivots, so the loop always ends.
+ * Rivest 1975, "Expected time bounds for selection", CACM 18:165-172), counts below both in one
+ * sweep, and narrows every band to the side or the bracket holding the target. A sample of 16384
+ * keeps about 2% of the active entries per round, so 5e11 shrinks in four or five rounds to the
+ * ~1e6 that are then listed and selected directly: O(n log n) in all. Draws come from a
+ * fixed-seed generator: results never depend on them (only the running time does), and every
+ * round removes at least one pivot, so the loop always ends.
  *
  * Example: differences 1, 2, 4 give Walsh averages 1, 1.5, 2, 2.5, 3, 4; the 3rd smallest is 2.
  */
 
-/** An implicit matrix: entry (i, j) for 0 <= i < rows, first(i) <= j < cols, sorted as above. */
-export interface SortedMatrix {
-  rows: number;
-  cols: number;
-  /** Number of entries. */
+/** Entries r[i] + c[j] for 0 <= i < r.length and first(i) <= j < c.length, first(i) = i if triangular. */
+export interface SumMatrix {
+  r: Float64Array;
+  c: Float64Array;
+  triangular: boolean;
   size: number;
-  first(i: number): number;
-  value(i: number, j: number): number;
 }
 
 /** Walsh averages of an ascending array (i <= j); averaging by halves cannot overflow. */
-export function walshMatrix(sorted: Float64Array): SortedMatrix {
+export function walshMatrix(sorted: Float64Array): SumMatrix {
   const n = sorted.length;
-  return {
-    rows: n,
-    cols: n,
-    size: (n * (n + 1)) / 2,
-    first: (i) => i,
-    value: (i, j) => sorted[i] * 0.5 + sorted[j] * 0.5,
-  };
+  const h = new Float64Array(n);
+  for (let i = 0; i < n; i++) h[i] = sorted[i] * 0.5;
+  return { r: h, c: h, triangular: true, size: (n * (n + 1)) / 2 };
 }
 
-/** Differences x_i - y_j of two ascending arrays (y walked from its top so rows ascend). */
-export function shiftMatrix(x: Float64Array, y: Float64Array): SortedMatrix {
+/** Differences x_i - y_j of two ascending arrays. */
+export function shiftMatrix(x: Float64Array, y: Float64Array): SumMatrix {
   const top = y.length - 1;
-  return {
-    rows: x.length,
-    cols: y.length,
-    size: x.length * y.length,
-    first: () => 0,
-    value: (i, j) => x[i] - y[top - j],
-  };
+  const c = new Float64Array(y.length);
+  for (let j = 0; j <= top; j++) c[j] = -y[top - j];
+  return { r: x, c, triangular: false, size: x.length * y.length };
 }
 
 /**
- * Number of entries < t (strict) or <= t; if `edge` is given, edge[i] receives the first column of
- * row i whose entry is >= t (strict) or > t.
+ * Number of entries < t (strict) or <= t over the whole matrix; if `edge` is given, edge[i]
+ * receives the first column of row i whose entry is >= t (strict) or > t.
  */
-export function countBelow(m: SortedMatrix, t: number, strict: boolean, edge?: Int32Array): number {
-  let j = m.cols;
+export function countBelow(m: SumMatrix, t: number, strict: boolean, edge?: Int32Array): number {
+  const { r, c, triangular } = m;
+  let j = c.length;
   let count = 0;
-  for (let i = 0; i < m.rows; i++) {
-    if (strict) while (j > 0 && m.value(i, j - 1) >= t) j--;
-    else while (j > 0 && m.value(i, j - 1) > t) j--;
+  for (let i = 0; i < r.length; i++) {
+    const ri = r[i];
+    if (strict) while (j > 0 && ri + c[j - 1] >= t) j--;
+    else while (j > 0 && ri + c[j - 1] > t) j--;
     if (edge) edge[i] = j;
-    const f = m.first(i);
+    const f = triangular ? i : 0;
     if (j > f) count += j - f;
   }
   return count;
 }
 
 /** The smallest entry strictly greater than v (Infinity if none). */
-export function successor(m: SortedMatrix, v: number): number {
-  let j = m.cols;
+export function successor(m: SumMatrix, v: number): number {
+  const { r, c, triangular } = m;
+  let j = c.length;
   let best = Infinity;
-  for (let i = 0; i < m.rows; i++) {
-    while (j > 0 && m.value(i, j - 1) > v) j--;
-    const col = Math.max(j, m.first(i));
-    if (col < m.cols) {
-      const w = m.value(i, col);
-      if (w < best) best = w;
-    }
+  for (let i = 0; i < r.length; i++) {
+    const ri = r[i];
+    while (j > 0 && ri + c[j - 1] > v) j--;
+    const col = triangular && i > j ? i : j;
+    if (col < c.length && ri + c[col] < best) best = ri + c[col];
   }
   return best;
 }
@@ -93,48 +84,9 @@ const SAMPLE = 16384;
 const SPREAD = 1.5 * Math.sqrt(SAMPLE);
 
 /**
- * Counts below two values at once (strict: entries < a and entries < b, a <= b), walking one
- * pointer per value inside each row's active band [lo, hi). Valid when every entry left of a band
- * is below both values and every entry right of it is above both, which holds for values drawn
- * from the active entries; the walk then costs O(rows + min(cols, active)).
- */
-function countPair(m: SortedMatrix, a: number, b: number, lo: Int32Array, hi: Int32Array, edgeA: Int32Array, edgeB: Int32Array): [number, number] {
-  let ja = m.cols;
-  let jb = m.cols;
-  let ca = 0;
-  let cb = 0;
-  for (let i = 0; i < m.rows; i++) {
-    const l = lo[i];
-    const h = hi[i];
-    if (h <= l) {
-      // Empty band: the boundary is the band itself; keep the pointers monotone.
-      if (ja > l) ja = Math.max(l, Math.min(ja, h));
-      if (jb > l) jb = Math.max(l, Math.min(jb, h));
-      edgeA[i] = l;
-      edgeB[i] = l;
-      ca += l - m.first(i);
-      cb += l - m.first(i);
-      continue;
-    }
-    if (ja > h) ja = h;
-    if (ja < l) ja = l;
-    while (ja > l && m.value(i, ja - 1) >= a) ja--;
-    if (jb > h) jb = h;
-    if (jb < l) jb = l;
-    while (jb > l && m.value(i, jb - 1) >= b) jb--;
-    edgeA[i] = ja;
-    edgeB[i] = jb;
-    const f = m.first(i);
-    ca += ja - f;
-    cb += jb - f;
-  }
-  return [ca, cb];
-}
-
-/**
  * Reusable selection workspace for one matrix (buffers allocated once, so several order statistics
- * of the same matrix cost no extra garbage). The work is split into small functions on purpose:
- * each stays hot and type-stable in the JIT.
+ * cost no extra garbage). The work is split into small functions on purpose: each stays hot and
+ * type-stable in the JIT.
  */
 export class MatrixSelector {
   private readonly lo: Int32Array;
@@ -146,8 +98,8 @@ export class MatrixSelector {
   private readonly threshold: number;
   private buffer: Float64Array | undefined;
 
-  constructor(private readonly m: SortedMatrix) {
-    const R = m.rows;
+  constructor(private readonly m: SumMatrix) {
+    const R = m.r.length;
     this.lo = new Int32Array(R);
     this.hi = new Int32Array(R);
     this.edgeA = new Int32Array(R);
@@ -162,8 +114,8 @@ export class MatrixSelector {
     if (!(k >= 1 && k <= m.size)) throw new RangeError(`rank ${k} outside 1..${m.size}`);
     resetBands(m, lo, hi);
     const random = generator(0x9e3779b9 ^ k);
+    let [active, below] = bandTotals(m, lo, hi, prefix);
     for (;;) {
-      const [active, below] = bandTotals(m, lo, hi, prefix);
       const rank = k - below;
       if (active <= this.threshold) {
         this.buffer ??= new Float64Array(this.threshold);
@@ -176,15 +128,14 @@ export class MatrixSelector {
       const [lessLo, lessHi] = countPair(m, pLo, pHi, lo, hi, edgeA, edgeB);
       if (k <= lessLo) {
         // Target below pLo: drop every entry >= pLo.
-        hi.set(edgeA);
+        [active, below] = narrow(m, lo, hi, null, edgeA, prefix);
       } else if (k <= lessHi) {
         // pLo <= target < pHi: drop entries < pLo and >= pHi (pHi itself leaves the active set).
-        lo.set(edgeA);
-        hi.set(edgeB);
+        [active, below] = narrow(m, lo, hi, edgeA, edgeB, prefix);
       } else {
         // Target >= pHi: is it pHi itself? Otherwise drop every entry <= pHi.
         if (k <= countBelow(m, pHi, false, edgeB)) return pHi;
-        raise(lo, edgeB);
+        [active, below] = narrow(m, lo, hi, edgeB, null, prefix);
       }
     }
   }
@@ -207,56 +158,97 @@ export class MatrixSelector {
 }
 
 /** The k-th smallest entry (one-off; use MatrixSelector for several). */
-export function selectKth(m: SortedMatrix, k: number): number {
+export function selectKth(m: SumMatrix, k: number): number {
   return new MatrixSelector(m).kth(k);
 }
 
-export function matrixMedian(m: SortedMatrix): number {
+export function matrixMedian(m: SumMatrix): number {
   return new MatrixSelector(m).median();
 }
 
-function resetBands(m: SortedMatrix, lo: Int32Array, hi: Int32Array): void {
-  for (let i = 0; i < m.rows; i++) {
-    lo[i] = m.first(i);
-    hi[i] = m.cols;
+function resetBands(m: SumMatrix, lo: Int32Array, hi: Int32Array): void {
+  const cols = m.c.length;
+  for (let i = 0; i < lo.length; i++) {
+    lo[i] = m.triangular ? i : 0;
+    hi[i] = cols;
   }
 }
 
 /** Active entries (with the running prefix per row, for sampling) and entries left of the bands. */
-function bandTotals(m: SortedMatrix, lo: Int32Array, hi: Int32Array, prefix: Float64Array): [number, number] {
+function bandTotals(m: SumMatrix, lo: Int32Array, hi: Int32Array, prefix: Float64Array): [number, number] {
+  return narrow(m, lo, hi, null, null, prefix);
+}
+
+/** Raise lo to `up` and lower hi to `down` where given, then total the bands in the same sweep. */
+function narrow(m: SumMatrix, lo: Int32Array, hi: Int32Array, up: Int32Array | null, down: Int32Array | null, prefix: Float64Array): [number, number] {
   let active = 0;
   let below = 0;
-  for (let i = 0; i < m.rows; i++) {
+  const tri = m.triangular;
+  for (let i = 0; i < lo.length; i++) {
+    if (up !== null && up[i] > lo[i]) lo[i] = up[i];
+    if (down !== null && down[i] < hi[i]) hi[i] = down[i];
     prefix[i] = active;
     const w = hi[i] - lo[i];
     if (w > 0) active += w;
-    below += lo[i] - m.first(i);
+    below += lo[i] - (tri ? i : 0);
   }
-  prefix[m.rows] = active;
+  prefix[lo.length] = active;
   return [active, below];
 }
 
+/**
+ * Counts below two values at once (entries < a and entries < b, a <= b), one pointer per value,
+ * each walking only inside the rows' active bands. Valid because every entry left of a band is
+ * below every active entry and every entry right of it above, and a, b are active entries; the
+ * walk then costs O(rows + min(cols, active)).
+ */
+function countPair(m: SumMatrix, a: number, b: number, lo: Int32Array, hi: Int32Array, edgeA: Int32Array, edgeB: Int32Array): [number, number] {
+  const { r, c, triangular } = m;
+  let ja = c.length;
+  let jb = c.length;
+  let ca = 0;
+  let cb = 0;
+  for (let i = 0; i < r.length; i++) {
+    const l = lo[i];
+    const h = hi[i] > l ? hi[i] : l;
+    const ri = r[i];
+    if (ja > h) ja = h;
+    if (ja < l) ja = l;
+    while (ja > l && ri + c[ja - 1] >= a) ja--;
+    if (jb > h) jb = h;
+    if (jb < l) jb = l;
+    while (jb > l && ri + c[jb - 1] >= b) jb--;
+    edgeA[i] = ja;
+    edgeB[i] = jb;
+    const f = triangular ? i : 0;
+    ca += ja - f;
+    cb += jb - f;
+  }
+  return [ca, cb];
+}
+
 /** Uniform draws from the active entries: positions drawn, sorted, then met in one sweep of the rows. */
-function drawSample(m: SortedMatrix, lo: Int32Array, prefix: Float64Array, active: number, sample: Float64Array, random: () => number): void {
+function drawSample(m: SumMatrix, lo: Int32Array, prefix: Float64Array, active: number, sample: Float64Array, random: () => number): void {
+  const { r, c } = m;
   for (let s = 0; s < sample.length; s++) sample[s] = Math.floor(random() * active);
   sample.sort();
   let i = 0;
   for (let s = 0; s < sample.length; s++) {
     const u = sample[s];
     while (prefix[i + 1] <= u) i++;
-    sample[s] = m.value(i, lo[i] + (u - prefix[i]));
+    sample[s] = r[i] + c[lo[i] + (u - prefix[i])];
   }
   sample.sort();
 }
 
-function raise(lo: Int32Array, edge: Int32Array): void {
-  for (let i = 0; i < lo.length; i++) if (edge[i] > lo[i]) lo[i] = edge[i];
-}
-
-function listAndSelect(m: SortedMatrix, lo: Int32Array, hi: Int32Array, active: number, rank: number, buffer: Float64Array): number {
+function listAndSelect(m: SumMatrix, lo: Int32Array, hi: Int32Array, active: number, rank: number, buffer: Float64Array): number {
+  const { r, c } = m;
   const a = buffer.subarray(0, active);
   let p = 0;
-  for (let i = 0; i < m.rows; i++) for (let j = lo[i]; j < hi[i]; j++) a[p++] = m.value(i, j);
+  for (let i = 0; i < lo.length; i++) {
+    const ri = r[i];
+    for (let j = lo[i]; j < hi[i]; j++) a[p++] = ri + c[j];
+  }
   return quickselect(a, rank - 1);
 }
 
@@ -265,8 +257,7 @@ export function quickselect(a: Float64Array, r: number): number {
   let left = 0;
   let right = a.length - 1;
   while (right > left) {
-    const mid = (left + right) >>> 1;
-    const pivot = median3(a[left], a[mid], a[right]);
+    const pivot = median3(a[left], a[(left + right) >>> 1], a[right]);
     let lt = left;
     let gt = right;
     let i = left;

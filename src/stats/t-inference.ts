@@ -83,3 +83,10 @@ function assertRepresentable(r: TInference, alternative: Alternative): void {
     );
   }
 }
+
+/** One-sided alternatives report a one-sided confidence bound; say so. */
+export function intervalNote(alternative: Alternative): string[] {
+  if (alternative === 'greater') return ['one-sided alternative (greater): the interval is a lower confidence bound; its upper end is +Infinity'];
+  if (alternative === 'less') return ['one-sided alternative (less): the interval is an upper confidence bound; its lower end is -Infinity'];
+  return [];
+}

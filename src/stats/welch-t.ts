@@ -17,9 +17,8 @@
  * 95% interval [-3.3655, 0.2055].
  */
 import { hedgesG } from './effect-size.js';
-import { intervalNote } from './paired-t.js';
 import { constantGroupNotes, independentCore, type IndependentCore } from './sample.js';
-import { tInference } from './t-inference.js';
+import { intervalNote, tInference } from './t-inference.js';
 import type { ProcedureOptions, TestResult } from './types.js';
 
 /** Welch standard error and degrees of freedom in scaled units. */

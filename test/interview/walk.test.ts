@@ -6,7 +6,7 @@ import { describe, expect, it } from 'vitest';
 import type { Answers, Question } from '../../src/engine/types.js';
 import { CancelledError } from '../../src/errors.js';
 import type { PromptAdapter } from '../../src/interview/adapter.js';
-import { BACK_VALUE, HELP_VALUE, runInterview } from '../../src/interview/interview.js';
+import { BACK_VALUE, HELP_VALUE, firstSentence, runInterview } from '../../src/interview/interview.js';
 import { checkAnswers, missingAnswers } from '../../src/interview/walk.js';
 import { hiveNext } from './hives.js';
 import { memoryIO } from '../helpers/io.js';
@@ -109,9 +109,25 @@ describe('runInterview with an injected adapter', () => {
     await expect(runInterview({ next: hiveNext, io: memoryIO(), ask })).rejects.toBeInstanceOf(TypeError);
   });
 
+  it('returns initial answers that do not apply as given, so the caller can report them', async () => {
+    const ask = scripted(['one-each', 'lot', '5', '']);
+    const answers = await runInterview({ next: hiveNext, io: memoryIO(), ask, initial: { unit: 'hive', order: 'no' } });
+    expect(answers).toEqual({ unit: 'hive', layout: 'one-each', assignment: 'lot', hives: 5, note: '', order: 'no' });
+    expect(checkAnswers(hiveNext, answers).unused).toEqual(['order']);
+  });
+
   it('keeps initial answers even where the session would have asked', async () => {
     const initial: Answers = { layout: 'both-each-hive', order: 'yes' };
     const ask = scripted(['frame', '3', 'n/a']);
     expect(await runInterview({ next: hiveNext, io: memoryIO(), ask, initial })).toEqual({ unit: 'frame', layout: 'both-each-hive', order: 'yes', hives: 3, note: 'n/a' });
+  });
+});
+
+describe('firstSentence (the dim help line)', () => {
+  it('stops at the first full stop that ends a sentence, not at e.g. or i.e.', () => {
+    expect(firstSentence('Count loaves, e.g. 24 loaves per oven. Not trays.')).toBe('Count loaves, e.g. 24 loaves per oven.');
+    expect(firstSentence('The kiln, i.e. the firing chamber, matters! More text.')).toBe('The kiln, i.e. the firing chamber, matters!');
+    expect(firstSentence('A margin of 0.5 mm\n  is common. Or less.')).toBe('A margin of 0.5 mm is common.');
+    expect(firstSentence('No full stop at all')).toBe('No full stop at all');
   });
 });

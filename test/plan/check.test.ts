@@ -127,6 +127,7 @@ describe('plan check: the parts must agree', () => {
     expect(one(noMargin)[0].message).toMatch(/equivalence test and needs procedure.margin/);
     const stray = valid().replace('  nullValue: 0', '  nullValue: 0\n  margin: 2');
     expect(one(stray)[0]).toMatchObject({ code: 'unknown-key', ...where(stray, 'margin: 2') });
+    expect(one(stray)[0].message).toMatch(/only used by the equivalence procedures/);
   });
 
   it('the sensitivity analysis must fit the main procedure', () => {
@@ -144,6 +145,11 @@ describe('plan check: the parts must agree', () => {
     expect(one(text)[0].message).toMatch(/name the same column 'oven_a'/);
     const layout = valid(hiveFeeds).replace('layout: groups', 'layout: columns').replace(/ {2}group: group\n {2}value: honey_yield\n {2}firstLevel: .*\n {2}secondLevel: .*\n/, '  first: a\n  second: b\n');
     expect(one(layout)).toEqual([]);
+  });
+
+  it('an event value belongs to binary procedures only', () => {
+    const text = valid().replace('  second: Oven B', '  second: Oven B\n  event: burnt');
+    expect(one(text)[0]).toMatchObject({ code: 'unknown-key', ...where(text, 'event: burnt') });
   });
 
   it('pairing by id needs the id column', () => {

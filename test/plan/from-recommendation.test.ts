@@ -41,11 +41,17 @@ describe('planFromRecommendation', () => {
     });
   });
 
-  it('names the event value for binary outcomes and has no sensitivity when none is declared', () => {
+  it('names the event value of a binary outcome when the answers give it, and has no sensitivity when none is declared', () => {
     const plan = planFromRecommendation(weldInspection());
-    expect(plan.study.event).toBe('1');
+    expect(plan.study.event).toBeUndefined(); // the data layer recognises 0/1, yes/no, true/false
     expect(plan.sensitivity).toBeNull();
     expect(checkPlanObject(plan)).toEqual([]);
+    const rec = weldInspection();
+    rec.answers.event = 'crack';
+    expect(planFromRecommendation(rec).study.event).toBe('crack');
+    const continuous = splitLoaves();
+    continuous.answers.event = 'crack'; // not a binary procedure: no event in the plan
+    expect(planFromRecommendation(continuous).study.event).toBeUndefined();
   });
 
   it('carries the equivalence margin and the cautions', () => {
@@ -53,6 +59,23 @@ describe('planFromRecommendation', () => {
     expect(plan.procedure.margin).toBe(0.5);
     expect(plan.cautions[0]).toMatch(/qualified statistician/);
     expect(checkPlanObject(plan)).toEqual([]);
+  });
+
+  it('takes the confidence level from the recommendation when it gives one (equivalence: 1 - 2 alpha)', () => {
+    const rec = coldBoxes();
+    rec.procedure.confidence = 0.9;
+    const plan = planFromRecommendation(rec);
+    expect(plan.procedure.confidence).toBe(0.9);
+    expect(checkPlanObject(plan)).toEqual([]);
+  });
+
+  it('keeps the margin of an equivalence aim for a yes/no outcome, and checks it is a proportion', () => {
+    const rec = weldInspection();
+    rec.procedure.margin = 0.05;
+    expect(planFromRecommendation(rec).procedure.margin).toBe(0.05);
+    expect(checkPlanObject(planFromRecommendation(rec))).toEqual([]);
+    rec.procedure.margin = 5;
+    expect(checkPlanObject(planFromRecommendation(rec))).toEqual([expect.stringMatching(/procedure.margin: procedure.margin 5 cannot bound a difference of two proportions/)]);
   });
 
   it('takes the margin from the answers when the recommendation leaves it out', () => {

@@ -30,7 +30,7 @@ function dataFor(id: ProcedureId): fc.Arbitrary<Plan['data']> {
         : layout === 'long'
           ? fc.record({ id: named('id'), condition: named('c'), value: named('v'), firstLevel: named('1'), secondLevel: named('2') }).map((r) => ({ layout, ...r }))
           : layout === 'groups'
-            ? fc.record({ group: named('g'), value: named('v'), firstLevel: named('1'), secondLevel: named('2') }).map((r) => ({ layout, ...r }))
+            ? fc.record({ group: named('g'), value: named('v'), firstLevel: named('1'), secondLevel: named('2'), id: named('id') }, { requiredKeys: ['group', 'value', 'firstLevel', 'secondLevel'] }).map((r) => ({ layout, ...r }))
             : layout === 'columns'
               ? fc.record({ first: named('a'), second: named('b') }).map((r) => ({ layout, ...r }))
               : fc.record({ sequence: named('s'), firstThenSecond: named('ab'), secondThenFirst: named('ba'), period1: named('p1'), period2: named('p2'), id: named('id') }, { requiredKeys: ['sequence', 'firstThenSecond', 'secondThenFirst', 'period1', 'period2'] }).map((r) => ({ layout, ...r }));
@@ -59,6 +59,7 @@ const planArb: fc.Arbitrary<Plan> = fc.constantFrom(...PROCEDURE_IDS).chain((id)
       confidence: fc.double({ min: 1e-9, max: 1 - 1e-9, noNaN: true }),
       nullValue: finite,
       margin: fc.double({ min: 1e-12, max: 1e12, noNaN: true }),
+      binaryMargin: fc.option(fc.double({ min: 1e-6, max: 0.999, noNaN: true }), { nil: undefined }),
       sensitivity: allowed.length ? fc.option(fc.record({ id: fc.constantFrom(...allowed), why: text })) : fc.constant(null),
       hyp: fc.tuple(text, text, text, text),
       data: dataFor(id),
@@ -69,16 +70,16 @@ const planArb: fc.Arbitrary<Plan> = fc.constantFrom(...PROCEDURE_IDS).chain((id)
       answers: fc.dictionary(answerKey, answerValue, { maxKeys: 8 }),
       planning: fc.record({ difference: finite, sd: fc.double({ min: 1e-9, max: 1e9, noNaN: true }), rho: fc.double({ min: -0.999, max: 0.999, noNaN: true }), alpha: fc.double({ min: 1e-6, max: 0.5, noNaN: true }), power: fc.double({ min: 0.01, max: 0.999, noNaN: true }), n: fc.integer({ min: 2, max: 1e6 }), attrition: fc.double({ min: 0, max: 0.9, noNaN: true }) }, { requiredKeys: [] }),
     },
-    { requiredKeys: ['title', 'unit', 'outcome', 'first', 'second', 'kind', 'reasons', 'difference', 'alternative', 'confidence', 'nullValue', 'margin', 'sensitivity', 'hyp', 'data', 'conditions', 'scope', 'warnings', 'cautions', 'answers'] },
+    { requiredKeys: ['title', 'unit', 'outcome', 'first', 'second', 'kind', 'reasons', 'difference', 'alternative', 'confidence', 'nullValue', 'margin', 'binaryMargin', 'sensitivity', 'hyp', 'data', 'conditions', 'scope', 'warnings', 'cautions', 'answers'] },
   ).map((r): Plan => ({
     format: 'tandem-plan/1',
     title: r.title,
     ...(r.createdBy !== undefined ? { createdBy: r.createdBy } : {}),
     ...(r.created !== undefined ? { created: r.created } : {}),
-    study: { unit: r.unit, outcome: r.outcome, ...(r.outcomeUnit !== undefined ? { outcomeUnit: r.outcomeUnit } : {}), first: r.first, second: r.second, ...(facts.binary ? { event: r.event ?? '1' } : {}) },
+    study: { unit: r.unit, outcome: r.outcome, ...(r.outcomeUnit !== undefined ? { outcomeUnit: r.outcomeUnit } : {}), first: r.first, second: r.second, ...(facts.binary && r.event !== undefined ? { event: r.event } : {}) },
     design: { family: facts.family, kind: r.kind, reasons: r.reasons },
     difference: r.difference,
-    procedure: { id, alternative: r.alternative, confidence: r.confidence, nullValue: r.nullValue, ...(facts.equivalence ? { margin: r.margin } : {}) },
+    procedure: { id, alternative: r.alternative, confidence: r.confidence, nullValue: r.nullValue, ...(facts.equivalence ? { margin: r.margin } : facts.binary && r.binaryMargin !== undefined ? { margin: r.binaryMargin } : {}) },
     sensitivity: r.sensitivity,
     hypotheses: { nullSymbols: r.hyp[0], alternativeSymbols: r.hyp[1], nullWords: r.hyp[2], alternativeWords: r.hyp[3] },
     data: r.data,

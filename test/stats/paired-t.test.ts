@@ -60,7 +60,7 @@ describe('paired t against @stdlib/stats-ttest', () => {
 });
 
 describe('paired t: published worked examples', () => {
-  it('Student (1908), Biometrika 6, p. 20: Cushny and Peebles sleep data, drug 1 minus drug 2', () => {
+  it('Student (1908), Biometrika 6: Cushny and Peebles (1905) sleep data, drug 1 minus drug 2', () => {
     const drug1 = [0.7, -1.6, -0.2, -1.2, -0.1, 3.4, 3.7, 0.8, 0.0, 2.0];
     const drug2 = [1.9, 0.8, 1.1, 0.1, -0.1, 4.4, 5.5, 1.6, 4.6, 3.4];
     const r = pairedT(drug1, drug2, opts());
@@ -74,7 +74,7 @@ describe('paired t: published worked examples', () => {
     close(r.ci[1], -0.7001142, 1e-7, 'Student 1908 interval upper');
   });
 
-  it("Fisher (1935), The Design of Experiments, section 17: Darwin's Zea mays, crossed minus self-fertilised", () => {
+  it("Fisher (1935), The Design of Experiments, ch. III: Darwin's Zea mays, crossed minus self-fertilised", () => {
     // Differences in eighths of an inch for 15 pairs grown in the same pot; Fisher reports
     // t = 2.148 on 14 degrees of freedom, just beyond the 5% point (values from memory).
     const diffs = [49, -67, 8, 16, 6, 23, 28, 41, 14, 29, 56, 24, 75, 60, -48];
@@ -156,6 +156,14 @@ describe('paired t: bad input on purpose', () => {
       close(r.estimate, ref.estimate * k, 1e-12, `estimate at scale ${k}`);
       close(r.effectSize!.value, Math.sign(k) * ref.effectSize!.value, 1e-12, `d_z at scale ${k}`);
     }
+  });
+  it('subnormal values (around 1e-310): rescaled, same t and p up to their reduced precision', () => {
+    const a = [1.2, 3.4, 2.2, 5.1, 4.4, 3.9];
+    const b = [1.0, 2.9, 2.5, 4.0, 4.1, 3.0];
+    const ref = pairedT(a, b, opts());
+    const r = pairedT(a.map((v) => v * 1e-310), b.map((v) => v * 1e-310), opts());
+    close(r.statistic, ref.statistic, 1e-9, 't at 1e-310');
+    close(r.pValue, ref.pValue, 1e-9, 'p at 1e-310');
   });
   it('differences beyond double range are a clear error, not Infinity or NaN', () => {
     const e = statsError(() => pairedT([1.7e308, 1.6e308, 1.5e308], [-1.7e308, -1.5e308, -1.6e308], opts()));

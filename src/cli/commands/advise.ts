@@ -155,10 +155,8 @@ export default async function advise(argv: string[], io: IO): Promise<number> {
     return EXIT.output;
   }
 
-  // On a terminal, offer to keep what the flags did not already write.
-  if (io.interactive && !json && !markdown && !(planFile && answersFile) && (interviewed || !other)) {
-    await offerToSave(s, { planFile, answersFile });
-  }
+  // On a terminal, offer to keep the answers and the plan, unless the flags already chose files.
+  if (io.interactive && !json && !markdown && !planT && !saveT && (interviewed || !other)) await offerToSave(s);
   return EXIT.ok;
 }
 
@@ -200,19 +198,19 @@ async function writeAnswers(s: Session, t: Target): Promise<string> {
 }
 
 /** The interview's last screen: offer to save the answers and the plan (Ctrl-C: nothing written). */
-async function offerToSave(s: Session, done: { planFile?: string; answersFile?: string }): Promise<void> {
+async function offerToSave(s: Session): Promise<void> {
   const { offerSave } = await import('../../interview/save.js');
   const a = s.rec.answers;
   const stem = `${slugify(String(a.first_label ?? ''), 'first')}-vs-${slugify(String(a.second_label ?? ''), 'second')}`.replace(/_/g, '-');
-  // TODO(issue 2): offerSave always offers both files; it could take which to offer, so that a
-  // file already written by a flag (or a plan for a design that has none) is not offered again.
+  // TODO(issue 2): offerSave always offers both files; for a design that has no plan it could
+  // offer the answers only (until then, a plan chosen there is declined with a message).
   const choice = await offerSave(s.io, { answersPath: `${stem}.answers.yaml`, planPath: `${stem}.plan.yaml` }, { force: s.force });
   const other = s.rec.design.family === 'other' || s.rec.procedure.id === null;
-  if (choice.answersPath && !done.answersFile) {
+  if (choice.answersPath) {
     await writeAnswers(s, { shown: choice.answersPath, abs: resolve(s.io.cwd, choice.answersPath) });
     s.io.stderr.write(`tandem advise: answers written to ${choice.answersPath}\n`);
   }
-  if (choice.planPath && !done.planFile) {
+  if (choice.planPath) {
     if (other) {
       s.io.stderr.write(`tandem advise: no plan written: ${s.rec.design.label} is outside a two-condition comparison\n`);
       return;
