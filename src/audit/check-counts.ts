@@ -114,8 +114,9 @@ export function checkCounts(ctx: AuditContext, out: Collector): void {
   out.check({ what: `df (${exp.basis})`, reported: df.text, expected: exp.range, ok });
   if (ok) return;
   const pooledLike = (ctx.used === 'welch-t' || ctx.used === 'welch-equivalence') && n1 && n2 && df.value === n1.value + n2.value - 2;
+  const fewerPairs = ctx.usedFamily === 'paired' && n && Number.isInteger(df.value) && df.value + 1 < n.value;
   out.add('df-inconsistent',
-    `The reported df = ${df.text} does not fit ${ctx.usedLabel}: with the reported counts it should be ${showRange(exp.range)} (${exp.basis}).${pooledLike ? ' The value is the pooled df; the pooled t may have been run instead of Welch.' : ''}`,
+    `The reported df = ${df.text} does not fit ${ctx.usedLabel}: with the reported counts it should be ${showRange(exp.range)} (${exp.basis}).${pooledLike ? ' The value is the pooled df; the pooled t may have been run instead of Welch.' : ''}${fewerPairs ? ` df = ${df.text} implies ${df.value + 1} pairs: n may count ${ctx.record.answers?.unit ?? 'unit'}s whose pair is incomplete.` : ''}`,
     `Recompute df from the number of ${ctx.usedFamily === 'paired' ? 'complete pairs' : 'values per group'} actually analysed and check that the stated procedure is the one that was run.`,
     { reportedDf: df.value, expectedLow: exp.range[0], expectedHigh: exp.range[1] });
 }

@@ -11,7 +11,8 @@ import { overlaps, rangeOf, show } from './digits.js';
 import type { PairingAccount } from './pairing.js';
 import type { DataComparison, ReportedNumber } from './types.js';
 
-export function checkData(ctx: AuditContext, out: Collector, acc: PairingAccount, cmp: DataComparison): void {
+/** `interval` is the colleague's result whose interval matches the reported one (two-sided when both ends are reported). */
+export function checkData(ctx: AuditContext, out: Collector, acc: PairingAccount, cmp: DataComparison, interval: TestResult | null = cmp.colleague.result): void {
   const unit = String(ctx.record.answers?.unit ?? 'unit');
   if (acc.duplicates.length > 0) {
     const list = acc.duplicates.slice(0, 5).map((d) => `${d.id} (${d.times} times, lines ${d.lines.join(', ')})`).join('; ');
@@ -27,7 +28,7 @@ export function checkData(ctx: AuditContext, out: Collector, acc: PairingAccount
       { incomplete: acc.incomplete, pairs: acc.pairs });
     checkIncompleteKept(ctx, out, acc);
   }
-  checkReproduced(ctx, out, cmp.colleague.result);
+  checkReproduced(ctx, out, cmp.colleague.result, interval);
   const a = cmp.colleague.result;
   const b = cmp.recommended?.result;
   if (a && b && a.procedure !== b.procedure) {
@@ -55,7 +56,7 @@ function checkIncompleteKept(ctx: AuditContext, out: Collector, acc: PairingAcco
 }
 
 /** The colleague's procedure on the data must give the reported numbers (to their digits). */
-function checkReproduced(ctx: AuditContext, out: Collector, res: TestResult | null): void {
+function checkReproduced(ctx: AuditContext, out: Collector, res: TestResult | null, interval: TestResult | null): void {
   if (!res || res.procedure === 'signed-rank' || res.procedure === 'rank-sum') return;
   const r = ctx.r;
   const misses: string[] = [];
@@ -75,8 +76,8 @@ function checkReproduced(ctx: AuditContext, out: Collector, res: TestResult | nu
   if (r.statistic && !res.procedure.endsWith('equivalence')) cmp('statistic', r.statistic, res.statistic);
   if (r.df && res.df !== null) cmp('df', r.df, res.df, r.df.halfUnit >= 0.5 && res.procedure.startsWith('welch') ? [r.df.value - 0.5, r.df.value + 1] : undefined);
   if (r.pValue && !res.procedure.endsWith('equivalence')) cmp('p-value', r.pValue, res.pValue, pRangeReported(r.pValue));
-  cmp('interval lower end', r.ci?.lower, res.ci[0]);
-  cmp('interval upper end', r.ci?.upper, res.ci[1]);
+  cmp('interval lower end', r.ci?.lower, (interval ?? res).ci[0]);
+  cmp('interval upper end', r.ci?.upper, (interval ?? res).ci[1]);
   if (misses.length) {
     out.add('data-reported-differs',
       `Run on the data as the colleague describes it (${res.method}), the numbers differ from the report: ${misses.join('; ')}.`,

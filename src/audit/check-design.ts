@@ -24,7 +24,10 @@ export function checkDesign(ctx: AuditContext, out: Collector): void {
     out.add('procedure-unknown', `The procedure "${r.procedureText}" could not be matched to a known two-condition procedure.`, 'Write reported.procedure as one of the ids paired-t, welch-t, pooled-t, signed-rank, rank-sum, mcnemar, two-proportions, crossover-t, paired-equivalence, welch-equivalence.');
   }
   if (!design) {
-    out.add('design-unknown', 'The record holds no study facts (answers, an answers file or a plan), so whether the data are paired or independent could not be checked.', 'Add study.answers with the interview answers, or study.answersFile / study.planFile.');
+    const noted = ctx.recommendationNote && ctx.record.answers;
+    out.add('design-unknown',
+      noted ? `The study facts could not be classified: ${ctx.recommendationNote}. Whether the data are paired or independent was not checked.` : 'The record holds no study facts (answers, an answers file or a plan), so whether the data are paired or independent could not be checked.',
+      noted ? 'Complete the answers (tandem advise --answers FILE lists what is missing), or state study.design.' : 'Add study.answers with the interview answers, or study.answersFile / study.planFile, or at least study.design.');
   }
   const kind = design?.kind ?? '';
   const fam = ctx.usedFamily;
@@ -45,7 +48,7 @@ export function checkDesign(ctx: AuditContext, out: Collector): void {
   if (design?.family === 'paired' && fam === 'independent') {
     out.add('independent-test-on-paired',
       `The study facts describe a paired design (${design.label ?? kind}): each ${unit} contributes a measurement under both conditions. ${ctx.usedLabel} treats the two sets as unrelated, so it ignores the pairing: the standard error is wrong (too large when pair members move together), n counts measurements instead of ${unit}s, and df are too many.`,
-      `${instead} on the differences${ctx.subtraction ? ` (${ctx.subtraction})` : ''}, with n = number of complete pairs and df = pairs - 1.`);
+      `${instead}${instead.endsWith('on the differences') ? '' : ' on the differences'}${ctx.subtraction ? ` (${ctx.subtraction})` : ''}, with n = number of complete pairs${ctx.recommended === 'paired-t' || !ctx.recommended ? ' and df = pairs - 1' : ''}.`);
   }
   if (design?.family === 'independent' && usedPaired) {
     out.add('paired-test-on-unmatched',
@@ -79,7 +82,7 @@ export function checkDesign(ctx: AuditContext, out: Collector): void {
       rb?.instead ?? 'See what the interview recommends instead for this design (tandem advise).');
   }
   checkOutcomeType(ctx, out);
-  if (rec?.procedure.id && ctx.used && ctx.used !== rec.procedure.id && rec.procedure.fallback !== ctx.used && design && fam === design.family && out.findings.every((f) => f.severity !== 'error')) {
+  if (rec?.procedure.id && ctx.used && ctx.used !== rec.procedure.id && rec.procedure.fallback !== ctx.used && design && fam === design.family && out.findings.every((f) => f.code === 'procedure-unknown' || f.code === 'design-unknown')) {
     out.add('procedure-not-recommended',
       `${ctx.usedLabel} fits the design's family, but the recommended procedure is the ${PROCEDURE_LABEL[rec.procedure.id]}${ctx.used === 'pooled-t' && rec.procedure.id === 'welch-t' ? ': the pooled t assumes equal spreads in both groups and can mislead when spreads and group sizes differ' : ''}.`,
       `Report the ${PROCEDURE_LABEL[rec.procedure.id]} as the main result, or say why the other procedure was pre-declared.`);

@@ -13,7 +13,7 @@
 import { gammaln } from '../stats/distributions.js';
 import type { AuditContext, Collector } from './context.js';
 import { pairsOf } from './check-counts.js';
-import { overlaps, rangeOf, rangeOver, showRange } from './digits.js';
+import { isRange, overlaps, rangeOf, rangeOver, showRange } from './digits.js';
 import type { EffectFormula } from './types.js';
 
 const FORMULA_WORDS: Record<EffectFormula, string> = {
@@ -63,7 +63,7 @@ function checkValue(ctx: AuditContext, out: Collector): void {
   const es = ctx.r.effectSize!;
   if (!es.value) return;
   const expected = expectedValue(ctx, es.formula);
-  if (!expected) return;
+  if (!expected || !isRange(expected.range)) return;
   const rep = rangeOf(es.value);
   const mirrored: [number, number] = [-expected.range[1], -expected.range[0]];
   const ok = overlaps(expected.range, rep) || (es.value.value >= 0 && overlaps(mirrored, rep));

@@ -14,7 +14,7 @@ import { tCdf, tSf } from '../stats/distributions.js';
 import type { AuditContext, Collector } from './context.js';
 import { pRangeReported } from './check-pvalue.js';
 import { estimateRange, independentSe } from './check-interval.js';
-import { overlaps, rangeOf, rangeOver, showRange } from './digits.js';
+import { isRange, overlaps, rangeOf, rangeOver, showRange } from './digits.js';
 import { referenceOf } from './recompute.js';
 
 export function checkEquivalence(ctx: AuditContext, out: Collector): void {
@@ -92,7 +92,7 @@ function recomputeOneSided(ctx: AuditContext, out: Collector, margin?: [number, 
     ['upper', eq.pUpper, rangeOver([est, se.range, margin, df], (e, s, m, d) => tCdf((e - m) / s, d))],
   ];
   for (const [side, rep, exp] of sides) {
-    if (!rep) continue;
+    if (!rep || !isRange(exp)) continue;
     const ok = overlaps(exp, pRangeReported(rep));
     out.check({ what: `one-sided p against the ${side} margin (${se.basis})`, reported: rep.text, expected: exp, ok });
     if (!ok) {

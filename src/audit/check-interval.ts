@@ -10,7 +10,7 @@
 import type { AuditContext, Collector } from './context.js';
 import { pairsOf } from './check-counts.js';
 import { pRangeReported } from './check-pvalue.js';
-import { gap, overlaps, rangeOf, rangeOver, showRange } from './digits.js';
+import { gap, isRange, overlaps, rangeOf, rangeOver, showRange } from './digits.js';
 import { criticalRange, referenceOf, statName, type Reference } from './recompute.js';
 
 /** The standard error from numbers other than the statistic, if the report gives them. */
@@ -63,7 +63,7 @@ export function checkInterval(ctx: AuditContext, out: Collector): void {
     const se = independentSe(ctx);
     if (se && se.range[0] > 0 && !out.has('statistic-estimate-sign')) {
       const expected = rangeOver([est, se.range], (e, s) => e / s);
-      const ok = overlaps(expected, t);
+      const ok = !isRange(expected) || overlaps(expected, t);
       out.check({ what: `statistic (estimate / SE, SE from ${se.basis})`, reported: statistic.text, expected, ok });
       if (!ok) {
         out.add('statistic-inconsistent',
@@ -76,6 +76,10 @@ export function checkInterval(ctx: AuditContext, out: Collector): void {
   if (!ci || (!ci.lower && !ci.upper)) return;
   const lower = ci.lower ? rangeOf(ci.lower) : undefined;
   const upper = ci.upper ? rangeOf(ci.upper) : undefined;
+  if (ci.lower && ci.upper && ci.lower.value > ci.upper.value) {
+    out.add('ci-inconsistent', `The interval's lower end ${ci.lower.text} is above its upper end ${ci.upper.text}.`, 'Write the interval as lower end to upper end, both from the same subtraction (first minus second).');
+    return;
+  }
   if (est && ((lower && est[1] < lower[0]) || (upper && est[0] > upper[1]))) {
     out.add('ci-excludes-estimate',
       `The estimate (${estimate?.text ?? showRange(est)}) lies outside its own interval (${ci.lower?.text ?? '-infinity'} to ${ci.upper?.text ?? 'infinity'}).`,
@@ -103,6 +107,10 @@ export function checkInterval(ctx: AuditContext, out: Collector): void {
   };
   const fits = (p: { lo: [number, number]; hi: [number, number] }): boolean => (!lower || overlaps(p.lo, lower)) && (!upper || overlaps(p.hi, upper));
   const pred = ends(ctx.confidence, ref.ref, oneSided);
+  if (!isRange(pred.lo) || !isRange(pred.hi)) {
+    out.check({ what: 'confidence interval', reported: `${ci.lower?.text ?? ''} to ${ci.upper?.text ?? ''}`, expected: null, ok: null, note: 'not recomputed: the standard error cannot be derived (a zero statistic or SE)' });
+    return;
+  }
   const ok = fits(pred);
   const levelText = `${Math.round(ctx.confidence * 1000) / 10}%`;
   out.check({ what: `interval lower end (${levelText}, ${se ? se.basis : 'SE = estimate / statistic'})`, reported: ci.lower?.text ?? 'none', expected: lower ? pred.lo : null, ok: lower ? overlaps(pred.lo, lower) : null });

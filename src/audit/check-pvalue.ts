@@ -9,7 +9,7 @@
  */
 import type { Alternative } from '../stats/types.js';
 import type { AuditContext, Collector } from './context.js';
-import { overlaps, rangeOf, showRange } from './digits.js';
+import { isRange, overlaps, rangeOf, showRange } from './digits.js';
 import { altWords, pRange, referenceOf } from './recompute.js';
 import type { ReportedNumber } from './types.js';
 
@@ -41,6 +41,10 @@ export function checkPValue(ctx: AuditContext, out: Collector): void {
   }
   const stat = rangeOf(statistic);
   const expected = pRange(ref.ref, stat, alt);
+  if (!isRange(expected)) {
+    out.check({ what: 'p-value from the statistic', reported: pValue.text, expected: null, ok: null, note: 'not recomputed: the statistic and df give no p-value' });
+    return;
+  }
   const ok = overlaps(expected, reported);
   const from = `${ref.ref.kind === 'chisq1' ? 'chi-square' : ref.ref.kind === 'normal' ? 'z' : 't'} = ${statistic.text}${ref.ref.kind === 't' ? `, df ${ref.ref.dfText}` : ref.ref.kind === 'chisq1' ? ', 1 df' : ''}`;
   out.check({ what: `p-value (${altWords(alt)}${stated ? '' : ', assumed'}, from ${from})`, reported: pValue.text, expected, ok });

@@ -32,6 +32,8 @@ export interface AuditContext {
   recommended?: ProcedureId;
   /** True when `recommended` is a default for a stated design, not the rule base's choice. */
   recommendedByDefault?: boolean;
+  /** Why the study facts gave no recommendation (e.g. incomplete answers). */
+  recommendationNote?: string;
 }
 
 /** Defaults for a design stated without answers (binary outcomes cannot be told apart: none). */
@@ -43,7 +45,7 @@ function defaultFor(design: AuditContext['design'], record: AuditRecord): Proced
   return undefined;
 }
 
-export function makeContext(record: AuditRecord, rec: Recommendation | null): AuditContext {
+export function makeContext(record: AuditRecord, rec: Recommendation | null, recommendationNote?: string): AuditContext {
   const r = record.reported;
   const used = r.procedure;
   const usedFamily = used ? familyOf(used) : r.procedureFamily;
@@ -53,7 +55,8 @@ export function makeContext(record: AuditRecord, rec: Recommendation | null): Au
       ? { ...record.statedDesign }
       : null;
   const confidence = r.confidence ?? (r.alpha ? 1 - r.alpha.value : 0.95);
-  const alpha = r.alpha?.value ?? 1 - confidence;
+  // Rounded so that 1 - 0.95 reads 0.05 in messages.
+  const alpha = r.alpha?.value ?? Math.round((1 - confidence) * 1e9) / 1e9;
   const [first, second] = orderedGroups(r);
   const ctx: AuditContext = {
     record,
@@ -68,6 +71,7 @@ export function makeContext(record: AuditRecord, rec: Recommendation | null): Au
   if (usedFamily) ctx.usedFamily = usedFamily;
   if (first) ctx.first = first;
   if (second) ctx.second = second;
+  if (recommendationNote) ctx.recommendationNote = recommendationNote;
   if (r.difference) ctx.subtraction = `${r.difference.first} minus ${r.difference.second}`;
   if (rec?.procedure.id) ctx.recommended = rec.procedure.id;
   else if (!rec) {

@@ -80,7 +80,8 @@ export function gap(a: [number, number], b: [number, number]): number {
  * The range of f over a box of inputs, evaluated at every corner and the centre. Exact for
  * functions monotone in each input over the box, which holds for the recomputations here (a tail
  * probability in |t| and df, an interval end in estimate, statistic and quantile) over the small
- * boxes that rounding leaves.
+ * boxes that rounding leaves. Inputs where f is undefined (NaN) are skipped; when none is left the
+ * result is [NaN, NaN] (see isRange).
  */
 export function rangeOver(boxes: [number, number][], f: (...x: number[]) => number): [number, number] {
   let lo = Infinity;
@@ -94,7 +95,12 @@ export function rangeOver(boxes: [number, number][], f: (...x: number[]) => numb
   };
   for (let mask = 0; mask < 1 << k; mask++) visit(boxes.map((b, i) => ((mask >> i) & 1 ? b[1] : b[0])));
   visit(boxes.map((b) => (b[0] + b[1]) / 2));
-  return [lo, hi];
+  return lo <= hi ? [lo, hi] : [NaN, NaN];
+}
+
+/** False for the [NaN, NaN] that rangeOver returns when no input gave a number. */
+export function isRange(r: [number, number]): boolean {
+  return r[0] <= r[1];
 }
 
 /** A confidence level as written: 0.95, "95%", "95" or "0.95" -> 0.95. */

@@ -38,7 +38,7 @@ export interface AuditOptions {
 
 export function auditRecord(record: AuditRecord, recommendation: Recommendation | null, opts: AuditOptions = {}): AuditResult {
   const { recommendationNote } = opts;
-  const ctx = makeContext(record, recommendation);
+  const ctx = makeContext(record, recommendation, recommendationNote);
   const out = new Collector();
   checkDesign(ctx, out);
   checkPretest(ctx, out);

@@ -40,17 +40,24 @@ export function auditOnData(path: string, shown: string, ctx: AuditContext, out:
   const colleague = ctx.used
     ? runSide(ctx.used, colleagueInput(ctx.used, mapping, account, prepared), optionsFor(ctx, 'colleague'), 'as the colleague ran it')
     : { result: null, why: 'the record does not name a procedure that tandem can run' };
-  const recId = ctx.recommended ?? null;
+  // When the colleague used the recommended procedure, one column says it all.
+  const recId = ctx.recommended && ctx.recommended !== ctx.used ? ctx.recommended : null;
   const recommended = recId
     ? runSide(recId, prepared && procedureDesign(recId) === prepared.input.kind ? prepared.input : undefined, optionsFor(ctx, 'recommended'), 'as recommended')
     : null;
   const comparison: DataComparison = {
     file: shown,
-    pairing: [...account.lines, ...(prepared?.warnings ?? [])],
-    colleague: { label: ctx.used ? PROCEDURE_LABEL[ctx.used] : ctx.usedLabel, ...colleague },
+    // The account already names unmatched ids; keep the data layer's other warnings.
+    pairing: [...account.lines, ...(prepared?.warnings ?? []).filter((w) => !/unmatched id/.test(w))],
+    colleague: { label: ctx.used ? `${PROCEDURE_LABEL[ctx.used]}${ctx.used === ctx.recommended ? ' (also the recommended procedure)' : ''}` : ctx.usedLabel, ...colleague },
     recommended: recId ? { label: `${PROCEDURE_LABEL[recId]}${ctx.recommendedByDefault ? ' (default for the stated design)' : ''}`, ...recommended! } : null,
   };
-  checkData(ctx, out, account, comparison);
+  // A one-sided test is often reported with the two-sided interval: compare like with like.
+  let interval = colleague.result;
+  if (interval && ctx.used && ctx.r.ci?.lower && ctx.r.ci.upper && interval.alternative !== 'two-sided') {
+    interval = runSide(ctx.used, colleagueInput(ctx.used, mapping, account, prepared), { ...optionsFor(ctx, 'colleague'), alternative: 'two-sided' }, '').result;
+  }
+  checkData(ctx, out, account, comparison, interval);
   return { comparison, account };
 }
 

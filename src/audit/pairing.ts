@@ -135,8 +135,8 @@ function repeats(table: Table, id: CategoryColumn, key: (r: number) => number, l
     const k = key(r);
     if (k < 0) continue;
     const list = rows.get(k);
-    if (list) list.push(table.lines[r]);
-    else rows.set(k, [table.lines[r]]);
+    if (list) list.push(table.lineOf(r));
+    else rows.set(k, [table.lineOf(r)]);
   }
   return [...rows].filter(([, ls]) => ls.length > 1).map(([k, ls]) => ({ id: label(k), times: ls.length, lines: ls.slice(0, 5) }));
 }

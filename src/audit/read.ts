@@ -49,12 +49,14 @@ export async function readAuditRecord(path: string, shown = path, rulesDir?: str
   const loaded = loadYaml(readText(path, shown, 'audit record'), shown);
   const parsed = parseRecord(loaded, auditSchema());
   if (parsed.problems.length) throw invalid(shown, parsed.problems);
-  const rb = loadRuleBase(rulesDir);
+  // The rule base is needed only to check and classify answers.
+  let rbCache: RuleBase | undefined;
+  const rules = (): RuleBase => (rbCache ??= loadRuleBase(rulesDir));
   const base = dirname(path);
   const out: ReadRecord = { ...parsed, recommendation: null };
   const { record, refs } = parsed;
   if (refs.answersFile) {
-    const a = loadAnswersFile(resolve(base, refs.answersFile), rb);
+    const a = loadAnswersFile(resolve(base, refs.answersFile), rules());
     record.answers = a.answers;
     record.answersFrom = refs.answersFile;
     if (!record.mapping && a.data && typeof a.data.layout === 'string') record.mapping = a.data as unknown as DataMapping;
@@ -68,7 +70,7 @@ export async function readAuditRecord(path: string, shown = path, rulesDir?: str
       if (missing && !record.missing) record.missing = missing;
     }
   } else if (record.answers) {
-    const problems = checkInlineAnswers(loaded, rb, record.answers);
+    const problems = checkInlineAnswers(loaded, rules(), record.answers);
     if (problems.length) throw invalid(shown, problems);
   }
   if (!record.answers) {
@@ -76,7 +78,7 @@ export async function readAuditRecord(path: string, shown = path, rulesDir?: str
     return out;
   }
   try {
-    out.recommendation = classify(rb, record.answers);
+    out.recommendation = classify(rules(), record.answers);
   } catch (err) {
     if (!(err instanceof InputError)) throw err;
     const missing = err.problems.filter((p) => p.code === 'missing-key');

@@ -43,8 +43,13 @@ export function referenceOf(ctx: AuditContext): { ref: Reference } | { why: stri
   if (name === 'z') return { ref: { kind: 'normal' } };
   if (name === 'chi-square') return { ref: { kind: 'chisq1' } };
   const { df } = ctx.r;
-  if (df) return { ref: { kind: 't', df: reportedDfRange(ctx, df), dfText: df.text } };
+  if (df) {
+    const range = reportedDfRange(ctx, df);
+    if (!(range[0] > 0)) return { why: `the reported df (${df.text}) is not positive` };
+    return { ref: { kind: 't', df: range, dfText: df.text } };
+  }
   const exp = expectedDf(ctx);
+  if (exp && !(exp.range[0] > 0)) return { why: `the df implied by the counts (${exp.basis}) is not positive` };
   if (exp) return { ref: { kind: 't', df: exp.range, dfText: `${exp.basis}, not reported` } };
   return { why: 'df is not reported and cannot be worked out from the counts' };
 }

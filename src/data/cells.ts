@@ -68,8 +68,8 @@ export function hasNumericMarker(missing: ReadonlySet<string>): boolean {
 const POW10 = Array.from({ length: 23 }, (_, k) => Number(`1e${k}`));
 
 /**
- * A fast reading of `text.slice(start, end)` for the common plain decimal (sign, at most 15
- * digits, at most 22 after the point, no exponent, no spaces). Returns the value, or NaN when the
+ * A fast reading of `text.slice(start, end)` for the common plain decimal: a sign, at most 15
+ * digits, at most 22 after the point, no exponent, no spaces. Returns the value, or NaN when the
  * cell is not that simple and must go through `readNumberCell`.
  *
  * Exactness: the digits form an integer m < 10^15 < 2^53, held exactly, and 10^k for k <= 22 is
@@ -104,6 +104,43 @@ export function fastNumber(text: string, start: number, end: number): number {
   if (digits === 0 || digits > 15 || frac > 22) return NaN;
   const v = frac === 0 ? m : m / POW10[frac];
   return negative ? -v : v;
+}
+
+/**
+ * The same over UTF-8 bytes, for the plain scan: writes the value into out[at] and returns true,
+ * or returns false when the cell needs `readNumberCell`. A number is ASCII, where a byte and a
+ * character code agree. The body is repeated rather than shared, and the value is stored rather
+ * than returned, so that the loop stays monomorphic and no number is boxed on the heap: this runs
+ * once per cell of a million-row file.
+ */
+export function fastNumberBytes(bytes: Uint8Array, start: number, end: number, out: number[], at: number): boolean {
+  let i = start;
+  let negative = false;
+  let c = bytes[i];
+  if (c === 45 || c === 43) {
+    negative = c === 45;
+    i++;
+  }
+  let m = 0;
+  let digits = 0;
+  let frac = 0;
+  let point = false;
+  for (; i < end; i++) {
+    c = bytes[i];
+    if (c >= 48 && c <= 57) {
+      m = m * 10 + (c - 48);
+      digits++;
+      if (point) frac++;
+    } else if (c === 46 && !point) {
+      point = true;
+    } else {
+      return false;
+    }
+  }
+  if (digits === 0 || digits > 15 || frac > 22) return false;
+  const v = frac === 0 ? m : m / POW10[frac];
+  out[at] = negative ? -v : v;
+  return true;
 }
 
 function short(s: string): string {

@@ -5,9 +5,10 @@
  */
 import { InputError } from '../errors.js';
 import type { Problem } from '../problems.js';
-import { fastNumber, hasNumericMarker, readNumberCell } from './cells.js';
+import { fastNumber, fastNumberBytes, hasNumericMarker, readNumberCell } from './cells.js';
 import type { Delimiter } from './delimiter.js';
-import { isSpace, LevelPool } from './intern.js';
+import { isAsciiSpace, LevelPool } from './intern.js';
+import { numberArray, truncate } from './values.js';
 import type { Column, ColumnRequest, Table } from './types.js';
 
 /** More problems than this are counted, not listed. */
@@ -16,7 +17,7 @@ export const MAX_LISTED_PROBLEMS = 20;
 interface Slot {
   request: ColumnRequest;
   index: number;
-  numbers?: Float64Array;
+  numbers?: number[];
   codes?: Int32Array;
   pool?: LevelPool;
   missing: number;
@@ -26,14 +27,18 @@ export class ColumnCollector {
   readonly slots: Slot[];
   readonly fieldCount: number;
   rows = 0;
-  private lines = new Int32Array(1024);
+  /** Line of each row; null while every row sits on the line after the previous one. */
+  private lines: Int32Array | null = null;
+  private firstLine = 0;
   private capacity = 1024;
   private line = 0;
   private rowOk = true;
   private readonly problems: Problem[] = [];
   private problemCount = 0;
   private readonly useFast: boolean;
-  private readonly markers: string[];
+  /** Missing markers other than the empty cell, as strings and as UTF-8 bytes. */
+  private readonly markerSet: Set<string>;
+  private readonly markerBytes: Uint8Array[];
 
   constructor(
     readonly file: string,
@@ -43,11 +48,12 @@ export class ColumnCollector {
   ) {
     this.fieldCount = header.length;
     this.useFast = !hasNumericMarker(missing);
-    this.markers = [...missing].filter((m) => m !== '');
+    this.markerSet = new Set([...missing].filter((m) => m !== ''));
+    this.markerBytes = [...this.markerSet].map((m) => new TextEncoder().encode(m));
     this.slots = resolveColumns(file, header, requests)
       .map(({ request, index }): Slot => {
         const slot: Slot = { request, index, missing: 0 };
-        if (request.kind === 'number') slot.numbers = new Float64Array(this.capacity);
+        if (request.kind === 'number') slot.numbers = numberArray(this.capacity);
         else {
           slot.codes = new Int32Array(this.capacity);
           slot.pool = new LevelPool();
@@ -64,42 +70,71 @@ export class ColumnCollector {
     this.rowOk = true;
   }
 
-  /** The cell `text.slice(start, end)` of slot `k` (slots are in field order). */
-  cell(k: number, text: string, start: number, end: number): void {
+  /** The cell in bytes `src[start, end)` of slot `k` (slots are in field order): the plain scan. */
+  cellBytes(k: number, src: Uint8Array, start: number, end: number): void {
     const slot = this.slots[k];
     const row = this.rows;
     if (slot.numbers) {
-      if (start === end) {
-        slot.numbers[row] = NaN;
-        slot.missing++;
-        return;
-      }
-      const quick = this.useFast ? fastNumber(text, start, end) : NaN;
-      if (quick === quick) {
-        slot.numbers[row] = quick;
-        return;
-      }
-      const r = readNumberCell(text.slice(start, end), this.missing);
-      if (r.kind === 'value') slot.numbers[row] = r.value;
-      else {
-        slot.numbers[row] = NaN;
-        if (r.kind === 'missing') slot.missing++;
-        else this.problem(slot, r.message, r.hint);
-      }
+      if (start === end) return this.missingNumber(slot, row);
+      if (!this.useFast || !fastNumberBytes(src, start, end, slot.numbers, row)) this.slowNumber(slot, row, Buffer.from(src.buffer, src.byteOffset + start, end - start).toString('utf8'));
       return;
     }
-    while (start < end && isSpace(text.charCodeAt(start))) start++;
-    while (end > start && isSpace(text.charCodeAt(end - 1))) end--;
-    if (start === end || this.isMarker(text, start, end)) {
+    while (start < end && isAsciiSpace(src[start])) start++;
+    while (end > start && isAsciiSpace(src[end - 1])) end--;
+    if (start === end || this.isMarkerBytes(src, start, end)) {
       slot.codes![row] = -1;
       slot.missing++;
       return;
     }
-    slot.codes![row] = slot.pool!.intern(text, start, end);
+    slot.codes![row] = slot.pool!.internBytes(src, start, end);
   }
 
-  private isMarker(text: string, start: number, end: number): boolean {
-    for (const m of this.markers) if (m.length === end - start && text.startsWith(m, start)) return true;
+  /** The same cell as a string: papaparse's path. */
+  cellString(k: number, text: string): void {
+    const slot = this.slots[k];
+    const row = this.rows;
+    if (slot.numbers) {
+      if (text.length === 0) return this.missingNumber(slot, row);
+      const quick = this.useFast ? fastNumber(text, 0, text.length) : NaN;
+      if (quick === quick) slot.numbers[row] = quick;
+      else this.slowNumber(slot, row, text);
+      return;
+    }
+    let start = 0;
+    let end = text.length;
+    while (start < end && isAsciiSpace(text.charCodeAt(start))) start++;
+    while (end > start && isAsciiSpace(text.charCodeAt(end - 1))) end--;
+    const s = start === 0 && end === text.length ? text : text.slice(start, end);
+    if (s === '' || this.markerSet.has(s)) {
+      slot.codes![row] = -1;
+      slot.missing++;
+      return;
+    }
+    slot.codes![row] = slot.pool!.internString(s);
+  }
+
+  private missingNumber(slot: Slot, row: number): void {
+    slot.numbers![row] = NaN;
+    slot.missing++;
+  }
+
+  private slowNumber(slot: Slot, row: number, text: string): void {
+    const r = readNumberCell(text, this.missing);
+    if (r.kind === 'value') slot.numbers![row] = r.value;
+    else {
+      slot.numbers![row] = NaN;
+      if (r.kind === 'missing') slot.missing++;
+      else this.problem(slot, r.message, r.hint);
+    }
+  }
+
+  private isMarkerBytes(src: Uint8Array, start: number, end: number): boolean {
+    for (const m of this.markerBytes) {
+      if (m.length !== end - start) continue;
+      let same = true;
+      for (let i = 0; i < m.length && same; i++) same = m[i] === src[start + i];
+      if (same) return true;
+    }
     return false;
   }
 
@@ -123,16 +158,23 @@ export class ColumnCollector {
 
   end(): void {
     if (!this.rowOk) return;
-    this.lines[this.rows] = this.line;
+    if (this.rows === 0) this.firstLine = this.line;
+    if (this.lines) this.lines[this.rows] = this.line;
+    else if (this.line !== this.firstLine + this.rows) {
+      // A blank line or a quoted line break: from here on, lines are kept row by row.
+      this.lines = new Int32Array(this.capacity);
+      for (let r = 0; r < this.rows; r++) this.lines[r] = this.firstLine + r;
+      this.lines[this.rows] = this.line;
+    }
     this.rows++;
   }
 
   /** Every row from papaparse goes here. */
   addFields(fields: string[], line: number): void {
-    if (fields.length === 1 && fields[0].trim() === '' && this.fieldCount > 1) return;
+    if (fields.length === 1 && this.fieldCount > 1 && isBlank(fields[0])) return;
     this.begin(line);
     if (fields.length !== this.fieldCount) this.wrongFieldCount(fields.length);
-    else for (let k = 0; k < this.slots.length; k++) this.cell(k, fields[this.slots[k].index], 0, fields[this.slots[k].index].length);
+    else for (let k = 0; k < this.slots.length; k++) this.cellString(k, fields[this.slots[k].index]);
     this.end();
   }
 
@@ -151,10 +193,13 @@ export class ColumnCollector {
     for (const s of this.slots) {
       const name = s.request.name;
       columns[name] = s.numbers
-        ? { kind: 'number', name, index: s.index, values: s.numbers.subarray(0, this.rows), missing: s.missing }
+        ? { kind: 'number', name, index: s.index, values: truncate(s.numbers, this.rows), missing: s.missing }
         : categoryColumn(name, s.index, s.codes!.subarray(0, this.rows), s.pool!, s.missing);
     }
-    return { file: this.file, header: this.header, delimiter, parser, rows: this.rows, lines: this.lines.subarray(0, this.rows), columns };
+    const lines = this.lines;
+    const first = this.firstLine;
+    const lineOf = lines ? (r: number): number => lines[r] : (r: number): number => first + r;
+    return { file: this.file, header: this.header, delimiter, parser, rows: this.rows, lineOf, columns };
   }
 
   private problem(slot: Slot, message: string, hint: string): void {
@@ -180,17 +225,25 @@ export class ColumnCollector {
    */
   reserve(rows: number): void {
     if (rows > this.capacity) this.grow(rows);
+    if (this.rows === 0) return;
+    for (const s of this.slots) {
+      // An id-like column (mostly distinct values) gets room for all its values too.
+      if (s.pool && s.pool.count * 2 > this.rows) s.pool.reserve(Math.ceil((rows * s.pool.count) / this.rows), Math.ceil((rows * s.pool.size) / this.rows));
+    }
   }
 
   private grow(to = this.capacity * 2): void {
     this.capacity = to;
-    const lines = new Int32Array(this.capacity);
-    lines.set(this.lines);
-    this.lines = lines;
+    if (this.lines) {
+      const lines = new Int32Array(this.capacity);
+      lines.set(this.lines);
+      this.lines = lines;
+    }
     for (const s of this.slots) {
       if (s.numbers) {
-        const a = new Float64Array(this.capacity);
-        a.set(s.numbers);
+        const a = numberArray(this.capacity);
+        const old = s.numbers;
+        for (let i = 0; i < this.rows; i++) a[i] = old[i];
         s.numbers = a;
       } else {
         const a = new Int32Array(this.capacity);
@@ -241,4 +294,10 @@ function categoryColumn(name: string, index: number, codes: Int32Array, pool: Le
     find: (value) => pool.find(value),
     missing,
   };
+}
+
+/** Only ASCII white space: the plain scan skips such a line too. */
+function isBlank(s: string): boolean {
+  for (let i = 0; i < s.length; i++) if (!isAsciiSpace(s.charCodeAt(i))) return false;
+  return true;
 }

@@ -53,27 +53,32 @@ export function twoLevels(col: CategoryColumn, firstName: string | undefined, se
 
 /**
  * Ids that occur more than once (by the given key per row, -1 = ignore), as problems with their
- * lines. `why` says what a repeat means for this design.
+ * lines. `why` says what a repeat means for this design. Seen keys are kept as bits (a million ids
+ * take 125 kB); the earlier line of a repeat is looked up only for the few repeats reported.
  */
 export function repeatedIds(table: Table, idCol: CategoryColumn, key: (row: number) => number, keys: number, why: string, label: (k: number) => string): void {
-  const firstRow = new Int32Array(keys).fill(-1);
+  const seen = new Uint8Array((keys >> 3) + 1);
   const problems: Problem[] = [];
   let count = 0;
   for (let r = 0; r < table.rows; r++) {
     const k = key(r);
     if (k < 0) continue;
-    if (firstRow[k] === -1) firstRow[k] = r;
-    else {
-      count++;
-      if (problems.length < 10) {
-        problems.push({
-          code: 'duplicate-id',
-          file: table.file,
-          line: table.lines[r],
-          col: idCol.index + 1,
-          message: `${label(k)} again (first on line ${table.lines[firstRow[k]]})`,
-        });
-      }
+    const bit = 1 << (k & 7);
+    if ((seen[k >> 3] & bit) === 0) {
+      seen[k >> 3] |= bit;
+      continue;
+    }
+    count++;
+    if (problems.length < 10) {
+      let first = 0;
+      while (key(first) !== k) first++;
+      problems.push({
+        code: 'duplicate-id',
+        file: table.file,
+        line: table.lineOf(r),
+        col: idCol.index + 1,
+        message: `${label(k)} again (first on line ${table.lineOf(first)})`,
+      });
     }
   }
   if (count > 0) {

@@ -6,8 +6,8 @@
  */
 import { InputError } from '../errors.js';
 import { repeatedIds } from './levels.js';
-import type { OutcomeSpec, PreparedData, Table } from './types.js';
-import { category, numberArray, truncate, valueReaders } from './values.js';
+import type { CategoryColumn, OutcomeSpec, PreparedData, Table } from './types.js';
+import { category, column, numberArray, truncate, valueReaders } from './values.js';
 
 type Wide = { layout: 'wide'; first: string; second: string; id?: string; pairBy: 'id' | 'row-order' };
 
@@ -25,8 +25,20 @@ export function prepareWide(table: Table, m: Wide, outcome: OutcomeSpec): Prepar
       'each unit must appear on one row (its two measurements side by side); a repeat would count one unit twice',
       (k) => `id '${idCol.level(k)}' appears`);
   }
-  const [a, b] = valueReaders(table, [m.first, m.second], outcome);
   const n = table.rows;
+  const direct = complete(table, m, outcome, idCol);
+  if (direct) {
+    // Nothing to drop: the columns as read are the pairs (no copy of a million-row column).
+    return {
+      input: { kind: 'paired', first: direct[0], second: direct[1] },
+      layout: 'wide',
+      sides: { first: m.first, second: m.second },
+      counts: { rows: n, pairs: n, dropped: 0 },
+      notes: [pairingNote(m)],
+      warnings,
+    };
+  }
+  const [a, b] = valueReaders(table, [m.first, m.second], outcome);
   const first = numberArray(n);
   const second = numberArray(n);
   let pairs = 0;
@@ -78,8 +90,7 @@ export function prepareWide(table: Table, m: Wide, outcome: OutcomeSpec): Prepar
   if (pairs === 0) {
     throw new InputError(`${table.file}: no complete pairs: every row misses '${m.first}' or '${m.second}' (${table.rows} rows read)`);
   }
-  if (m.pairBy === 'row-order') notes.push('pairs formed by row: each row is taken as one unit, as requested');
-  else notes.push(`pairs identified by '${m.id}', one row per unit`);
+  notes.push(pairingNote(m));
   return {
     input: { kind: 'paired', first: truncate(first, pairs), second: truncate(second, pairs) },
     layout: 'wide',
@@ -88,4 +99,17 @@ export function prepareWide(table: Table, m: Wide, outcome: OutcomeSpec): Prepar
     notes,
     warnings,
   };
+}
+
+function pairingNote(m: Wide): string {
+  return m.pairBy === 'row-order' ? 'pairs formed by row: each row is taken as one unit, as requested' : `pairs identified by '${m.id}', one row per unit`;
+}
+
+/** The two numeric columns themselves when no row misses a value or an id; else null. */
+function complete(table: Table, m: Wide, outcome: OutcomeSpec, idCol: CategoryColumn | undefined): [number[], number[]] | null {
+  if (outcome.binary) return null;
+  const a = column(table, m.first);
+  const b = column(table, m.second);
+  if (a.kind !== 'number' || b.kind !== 'number' || a.missing > 0 || b.missing > 0 || (idCol && idCol.missing > 0)) return null;
+  return [a.values, b.values];
 }

@@ -21,8 +21,11 @@ export interface NumberColumn {
   name: string;
   /** 0-based field index in the header. */
   index: number;
-  /** One value per data row; NaN marks a missing cell (a literal NaN is refused when reading). */
-  values: Float64Array;
+  /**
+   * One value per data row; NaN marks a missing cell (a literal NaN is refused when reading).
+   * A plain array, so that a layout with nothing to drop can hand it to a procedure as it is.
+   */
+  values: number[];
   missing: number;
 }
 
@@ -51,8 +54,8 @@ export interface Table {
   parser: 'fast' | 'full';
   /** Data rows (blank lines are skipped and not counted). */
   rows: number;
-  /** The 1-based file line on which each data row starts. */
-  lines: Int32Array;
+  /** The 1-based file line on which data row r (0-based) starts. */
+  lineOf(row: number): number;
   columns: Record<string, Column>;
 }
 

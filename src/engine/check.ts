@@ -9,9 +9,9 @@
 import type { Problem } from '../problems.js';
 import type { AnswerValue, Answers } from './types.js';
 import { answerProblem } from './ask.js';
-import { factsOf, leavesOf } from './conditions.js';
+import { evaluate, factsOf, leavesOf } from './conditions.js';
 import { decide, type Decision } from './decide.js';
-import { walkAnswers } from './facts.js';
+import { refreshDerived } from './facts.js';
 import type { Condition, Pos, QuestionDef, RuleBase } from './model.js';
 import type { Facts } from './conditions.js';
 
@@ -37,6 +37,11 @@ interface RatioThreshold {
   num: string;
   den: string;
   t: number;
+  op: string;
+}
+interface Threshold {
+  t: number;
+  op: string;
 }
 
 function allConditions(rb: RuleBase): Condition[] {
@@ -52,35 +57,38 @@ function allConditions(rb: RuleBase): Condition[] {
 }
 
 /** Thresholds per number fact, pushed through min/max to their arguments; ratios kept apart. */
-function thresholds(rb: RuleBase): { direct: Map<string, Set<number>>; ratios: RatioThreshold[] } {
-  const direct = new Map<string, Set<number>>();
+function thresholds(rb: RuleBase): { direct: Map<string, Threshold[]>; ratios: RatioThreshold[] } {
+  const direct = new Map<string, Threshold[]>();
   const ratios: RatioThreshold[] = [];
   const derived = new Map(rb.derived.map((d) => [d.id, d]));
-  const push = (fact: string, t: number): void => {
+  const push = (fact: string, t: number, op: string): void => {
     const d = derived.get(fact);
-    if (d?.op === 'ratio') ratios.push({ num: d.args[0], den: d.args[1], t });
-    else if (d) d.args.forEach((a) => push(a, t));
+    if (d?.op === 'ratio') ratios.push({ num: d.args[0], den: d.args[1], t, op: 'equals' });
+    else if (d) d.args.forEach((a) => push(a, t, op));
     else {
-      if (!direct.has(fact)) direct.set(fact, new Set());
-      direct.get(fact)!.add(t);
+      if (!direct.has(fact)) direct.set(fact, []);
+      direct.get(fact)!.push({ t, op });
     }
   };
   for (const c of allConditions(rb)) {
     for (const leaf of leavesOf(c, rb.predicates)) {
-      if (['gt', 'gte', 'lt', 'lte', 'equals'].includes(leaf.op) && typeof leaf.value === 'number') push(leaf.fact, leaf.value);
+      if (['gt', 'gte', 'lt', 'lte', 'equals'].includes(leaf.op) && typeof leaf.value === 'number') push(leaf.fact, leaf.value, leaf.op);
     }
   }
   return { direct, ratios };
 }
 
-function around(t: number, integer: boolean): number[] {
-  if (integer) {
-    const lo = Math.floor(t);
-    const hi = Math.ceil(t);
-    return [lo - 1, lo, hi, hi + 1];
-  }
-  const d = Math.max(1e-6, Math.abs(t) * 1e-6);
-  return [t - d, t, t + d];
+/**
+ * Values on both sides of a threshold: for `gte t` / `lt t` the last value below t and t
+ * itself; for `gt t` / `lte t` t itself and the first value above; for `equals t` all three.
+ */
+function around(t: number, integer: boolean, op: string): number[] {
+  const d = integer ? 1 : Math.max(1e-6, Math.abs(t) * 1e-6);
+  const lo = integer ? Math.ceil(t) : t;
+  const hi = integer ? Math.floor(t) : t;
+  if (op === 'gte' || op === 'lt') return [lo - d, lo];
+  if (op === 'gt' || op === 'lte') return [hi, hi + d];
+  return integer && !Number.isInteger(t) ? [Math.floor(t), Math.ceil(t)] : [t - d, t, t + d];
 }
 
 function candidates(q: QuestionDef, facts: Facts, th: ReturnType<typeof thresholds>): AnswerValue[] {
@@ -88,7 +96,7 @@ function candidates(q: QuestionDef, facts: Facts, th: ReturnType<typeof threshol
   const blank: AnswerValue[] = q.optional ? [''] : [];
   if (q.type === 'text') return ['(example)', ...blank];
   const raw = new Set<number>();
-  for (const t of th.direct.get(q.id) ?? []) around(t, !!q.integer).forEach((v) => raw.add(v));
+  for (const { t, op } of th.direct.get(q.id) ?? []) around(t, !!q.integer, op).forEach((v) => raw.add(v));
   const num = (id: string): number | undefined => {
     const v = facts.get(id);
     return typeof v === 'number' ? v : undefined;
@@ -96,8 +104,9 @@ function candidates(q: QuestionDef, facts: Facts, th: ReturnType<typeof threshol
   for (const r of th.ratios) {
     const a = num(r.num);
     const b = num(r.den);
-    if (r.den === q.id && a !== undefined && r.t !== 0) around(a / r.t, !!q.integer).forEach((v) => raw.add(v));
-    if (r.num === q.id && b !== undefined) around(b * r.t, !!q.integer).forEach((v) => raw.add(v));
+    // A ratio's threshold moves with the other operand, so both sides of it are taken.
+    if (r.den === q.id && a !== undefined && r.t !== 0) around(a / r.t, !!q.integer, r.op).forEach((v) => raw.add(v));
+    if (r.num === q.id && b !== undefined) around(b * r.t, !!q.integer, r.op).forEach((v) => raw.add(v));
   }
   const ok = [...raw].filter((v) => answerProblem(q, v) === null).sort((x, y) => x - y);
   if (ok.length === 0) {
@@ -178,29 +187,45 @@ export function checkRuleBase(rb: RuleBase): CheckReport {
     procedureCounts[p] = (procedureCounts[p] ?? 0) + 1;
   };
 
+  // Depth-first over the questions in asking order, carrying the facts along the path (the same
+  // walk as walkAnswers, done incrementally so that no path is re-walked from the start).
   const answers: Answers = {};
-  const dfs = (): void => {
+  const facts: Facts = new Map();
+  const askedHere: QuestionDef[] = [];
+  const dfs = (from: number): void => {
     if (stopped) return;
-    const w = walkAnswers(rb, answers, true);
-    if (w.next === null) return leaf(answers, w.facts, w.asked);
+    const memo = new Map<string, boolean>();
+    let i = from;
+    while (i < rb.questions.length) {
+      const g = rb.questions[i].guard;
+      if (!g || evaluate(g, facts, { predicates: rb.predicates, rule: 'check', memo })) break;
+      i++;
+    }
+    if (i >= rb.questions.length) return leaf(answers, new Map(facts), askedHere);
     if (paths >= MAX_PATHS) {
       stopped = true;
       return;
     }
-    const q = w.next;
-    let values = candidates(q, w.facts, th);
+    const q = rb.questions[i];
+    let values = candidates(q, facts, th);
     if (!deciding.has(q.id)) {
       const k = rotation.get(q.id) ?? 0;
       rotation.set(q.id, k + 1);
       values = [values[k % values.length]];
     }
+    askedHere.push(q);
     for (const v of values) {
       answers[q.id] = v;
-      dfs();
+      facts.set(q.id, v);
+      refreshDerived(rb, facts);
+      dfs(i + 1);
     }
+    askedHere.pop();
     delete answers[q.id];
+    facts.delete(q.id);
+    refreshDerived(rb, facts);
   };
-  dfs();
+  dfs(0);
 
   const problems: Problem[] = [];
   const first = rb.questions[0]?.pos ?? { file: rb.files[0] ?? rb.dir, line: 1, col: 1 };

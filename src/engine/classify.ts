@@ -54,12 +54,18 @@ function build(rb: RuleBase, d: Decision, facts: Facts, answers: Answers, trace:
   const design = d.design!;
   const sel = d.selections[0];
   const proc = sel.procedure ? rb.procedures.get(sel.procedure) : undefined;
+  const plain = (name: string): AnswerValue | undefined => facts.get(name);
+  // The procedure's parameter texts may name answers themselves; fill them first.
   const lookup = (name: string): AnswerValue | undefined => {
-    if (name === 'param') return proc?.param.symbol;
-    if (name === 'param_words') return proc?.param.words;
+    if (name === 'param') return proc ? fill(proc.param.symbol, plain) : undefined;
+    if (name === 'param_words') return proc ? fill(proc.param.words, plain) : undefined;
     return facts.get(name);
   };
   const t = (s: string): string => fill(s, lookup);
+  const sentence = (s: string): string => {
+    const x = t(s);
+    return x.charAt(0).toUpperCase() + x.slice(1);
+  };
   const hyp = d.hypotheses[0];
   const scope = d.scope[0];
   const margin = facts.get('margin');
@@ -95,8 +101,8 @@ function build(rb: RuleBase, d: Decision, facts: Facts, answers: Answers, trace:
     hypotheses: {
       nullSymbols: t(hyp.nullSymbols),
       alternativeSymbols: t(hyp.alternativeSymbols),
-      nullWords: t(hyp.nullWords),
-      alternativeWords: t(hyp.alternativeWords),
+      nullWords: sentence(hyp.nullWords),
+      alternativeWords: sentence(hyp.alternativeWords),
     },
     scope: { causal: scope.causal, generalize: scope.generalize, text: t(scope.text) },
     warnings: d.warnings.map((w) => t(w.text)),

@@ -19,6 +19,12 @@ export interface EvalContext {
   trace?: TraceStep[];
   /** The rule (or question guard) being evaluated, for the trace. */
   rule: string;
+  /**
+   * Predicate results already computed on the same facts (a speed-up for the completeness
+   * check; the caller clears it whenever the facts change). Not used while tracing, so that the
+   * trace of each rule shows its own steps.
+   */
+  memo?: Map<string, boolean>;
 }
 
 export function isGiven(v: AnswerValue | undefined): v is AnswerValue {
@@ -39,24 +45,41 @@ export const LEAF: Record<LeafOperator, (actual: AnswerValue | undefined, expect
   lte: (a, e) => asNumber(a) !== undefined && (a as number) <= (e as number),
 };
 
-/** Short-circuit evaluation (all stops at the first false, any at the first true). */
-export function evaluate(c: Condition, facts: Facts, ctx: EvalContext): boolean {
+/**
+ * Short-circuit evaluation (all stops at the first false, any at the first true). Under an odd
+ * number of `not`s a leaf is traced as `not <operator>` with the negated result, so that every
+ * trace step reads the way it counts toward the rule.
+ */
+export function evaluate(c: Condition, facts: Facts, ctx: EvalContext, negated = false): boolean {
   switch (c.op) {
     case 'all':
-      return c.items.every((x) => evaluate(x, facts, ctx));
+      return c.items.every((x) => evaluate(x, facts, ctx, negated));
     case 'any':
-      return c.items.some((x) => evaluate(x, facts, ctx));
+      return c.items.some((x) => evaluate(x, facts, ctx, negated));
     case 'not':
-      return !evaluate(c.item, facts, ctx);
+      return !evaluate(c.item, facts, ctx, !negated);
     case 'ref': {
       const p = ctx.predicates.get(c.name);
       // Dangling references are refused at load; treat a missing one as false defensively.
-      return p ? evaluate(p.when, facts, ctx) : false;
+      if (!p) return false;
+      if (ctx.memo && !ctx.trace) {
+        const known = ctx.memo.get(c.name);
+        if (known !== undefined) return known;
+        const r = evaluate(p.when, facts, ctx);
+        ctx.memo.set(c.name, r);
+        return r;
+      }
+      return evaluate(p.when, facts, ctx, negated);
     }
     default: {
       const actual = facts.get(c.fact);
       const result = LEAF[c.op](actual, c.value);
-      ctx.trace?.push({ rule: ctx.rule, fact: c.fact, operator: c.op, expected: c.value, actual: isGiven(actual) ? actual : null, result });
+      if (ctx.trace) {
+        const step = { rule: ctx.rule, fact: c.fact, operator: negated ? `not ${c.op}` : c.op, expected: c.value, actual: isGiven(actual) ? actual : null, result: negated ? !result : result };
+        // The same check reached again through a shared predicate adds nothing to the reasons.
+        const seen = ctx.trace.some((t) => t.rule === step.rule && t.fact === step.fact && t.operator === step.operator && JSON.stringify(t.expected) === JSON.stringify(step.expected));
+        if (!seen) ctx.trace.push(step);
+      }
       return result;
     }
   }

@@ -23,12 +23,12 @@ export interface Decision {
   failed?: 'rules' | 'selections' | 'differences' | 'hypotheses' | 'scope';
 }
 
-function matches<T extends { id: string; when?: Condition }>(rb: RuleBase, items: T[], facts: Facts, trace?: TraceStep[]): T[] {
+function matches<T extends { id: string; when?: Condition }>(rb: RuleBase, items: T[], facts: Facts, memo: Map<string, boolean>, trace?: TraceStep[]): T[] {
   const out: T[] = [];
   for (const item of items) {
     // Record the trace only for items that hold: the trace explains the result, not every miss.
     const steps: TraceStep[] = [];
-    const ok = item.when ? evaluate(item.when, facts, { predicates: rb.predicates, rule: item.id, trace: trace ? steps : undefined }) : true;
+    const ok = item.when ? evaluate(item.when, facts, { predicates: rb.predicates, rule: item.id, trace: trace ? steps : undefined, memo }) : true;
     if (ok) {
       out.push(item);
       if (trace) trace.push(...steps);
@@ -43,36 +43,39 @@ function matches<T extends { id: string; when?: Condition }>(rb: RuleBase, items
  */
 export function decide(rb: RuleBase, facts: Facts, trace?: TraceStep[]): Decision {
   const d: Decision = { rules: [], selections: [], differences: [], hypotheses: [], scope: [], warnings: [], cautions: [], conditions: [] };
-  d.rules = matches(rb, rb.rules, facts, trace);
+  const memo = new Map<string, boolean>();
+  d.rules = matches(rb, rb.rules, facts, memo, trace);
   if (d.rules.length !== 1) return { ...d, failed: 'rules' };
   d.design = rb.designs.get(d.rules[0].design);
   if (!d.design) return { ...d, failed: 'rules' };
   facts.set('design_family', d.design.family);
   facts.set('design_kind', d.design.kind);
+  memo.clear();
 
-  d.selections = matches(rb, rb.selections, facts, trace);
+  d.selections = matches(rb, rb.selections, facts, memo, trace);
   if (d.selections.length !== 1) return { ...d, failed: 'selections' };
   const sel = d.selections[0];
   if (sel.procedure) facts.set('procedure', sel.procedure);
   else facts.delete('procedure');
   if (sel.fallback) facts.set('fallback', sel.fallback);
   else facts.delete('fallback');
+  memo.clear();
 
-  d.differences = matches(rb, rb.differences, facts, trace);
+  d.differences = matches(rb, rb.differences, facts, memo, trace);
   if (d.differences.length !== 1) return { ...d, failed: 'differences' };
-  d.hypotheses = matches(rb, rb.hypotheses, facts, trace);
+  d.hypotheses = matches(rb, rb.hypotheses, facts, memo, trace);
   if (d.hypotheses.length !== 1) return { ...d, failed: 'hypotheses' };
-  d.scope = matches(rb, rb.scope, facts, trace);
+  d.scope = matches(rb, rb.scope, facts, memo, trace);
   if (d.scope.length !== 1) return { ...d, failed: 'scope' };
-  d.warnings = matches(rb, rb.warnings, facts, trace);
-  d.cautions = matches(rb, rb.cautions, facts, trace);
+  d.warnings = matches(rb, rb.warnings, facts, memo, trace);
+  d.cautions = matches(rb, rb.cautions, facts, memo, trace);
 
   const proc = sel.procedure ? rb.procedures.get(sel.procedure) : undefined;
   for (const id of proc?.conditions ?? []) {
     const c = rb.conditions.get(id);
     if (!c) continue;
     const steps: TraceStep[] = [];
-    if (!c.when || evaluate(c.when, facts, { predicates: rb.predicates, rule: `condition:${id}`, trace: steps })) d.conditions.push(id);
+    if (!c.when || evaluate(c.when, facts, { predicates: rb.predicates, rule: `condition:${id}`, trace: steps, memo })) d.conditions.push(id);
   }
   return d;
 }

@@ -24,7 +24,7 @@ export function computeDerived(d: DerivedDef, facts: Facts): AnswerValue | undef
   return d.op === 'max' ? Math.max(...given) : Math.min(...given);
 }
 
-function refreshDerived(rb: RuleBase, facts: Facts): void {
+export function refreshDerived(rb: RuleBase, facts: Facts): void {
   for (const d of rb.derived) {
     const v = computeDerived(d, facts);
     if (v === undefined) facts.delete(d.id);
@@ -53,13 +53,16 @@ export function walkAnswers(rb: RuleBase, answers: Answers, stopAtFirstGap = fal
   const asked: QuestionDef[] = [];
   const missing: QuestionDef[] = [];
   let next: QuestionDef | null = null;
+  // Predicate results stay valid until the next answer is added to the facts.
+  const memo = new Map<string, boolean>();
   for (const q of rb.questions) {
-    if (q.guard && !evaluate(q.guard, facts, { predicates: rb.predicates, rule: `ask:${q.id}` })) continue;
+    if (q.guard && !evaluate(q.guard, facts, { predicates: rb.predicates, rule: `ask:${q.id}`, memo })) continue;
     asked.push(q);
     if (has(answers, q.id)) {
       const v = answers[q.id];
       if (v !== undefined && v !== null) facts.set(q.id, v);
       refreshDerived(rb, facts);
+      memo.clear();
       continue;
     }
     if (next === null) next = q;

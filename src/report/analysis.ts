@@ -181,7 +181,9 @@ function diagnose(spec: AnalysisSpec, input: ProcedureInput, labels: { first: st
     return { diagnostics: [], note: 'shape diagnostics do not apply to a 0/1 outcome; the counts are in the result', strips: [], legend: '' };
   }
   if (input.kind === 'paired') {
-    const d = new Array<number>(input.first.length);
+    // Built from a one-double literal so V8 allocates the double store once (see data/values.ts).
+    const d = [0.5];
+    d.length = input.first.length;
     for (let i = 0; i < d.length; i++) d[i] = input.first[i] - input.second[i];
     const label = `differences (${labels.first} minus ${labels.second})`;
     const { list, note } = describeAll([[label, d]]);

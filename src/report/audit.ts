@@ -6,7 +6,7 @@
 import { FINDING_CODES } from '../audit/codes.js';
 import { showRange } from '../audit/digits.js';
 import { PROCEDURE_LABEL } from '../audit/procedure-names.js';
-import type { AuditResult, Finding, ReportedNumber } from '../audit/types.js';
+import type { AuditResult, Claim, Finding, ReportedNumber } from '../audit/types.js';
 import type { TestResult } from '../stats/types.js';
 import { VERSION } from '../version.js';
 import { fmt, fmtP, markdownTable, textTable, type Style } from './style.js';
@@ -34,6 +34,16 @@ function verdict(r: AuditResult): string {
   return `${tally}. The reported analysis is consistent with the study facts and with itself, as far as the record lets tandem check.`;
 }
 
+const CLAIM_WORDS: Record<Claim, (a: string, b: string) => string> = {
+  difference: () => 'the conditions differ',
+  'no-difference': () => 'no difference',
+  equivalent: () => 'equivalent',
+  'not-equivalent': () => 'not shown equivalent',
+  'first-higher': (a) => `${a} higher`,
+  'second-higher': (_a, b) => `${b} higher`,
+  inconclusive: () => 'inconclusive',
+};
+
 const rn = (x?: ReportedNumber): string | undefined => x?.text;
 
 function reportedRows(r: AuditResult): string[][] {
@@ -56,7 +66,7 @@ function reportedRows(r: AuditResult): string[][] {
     ['interval', p.ci && `${rn(p.ci.lower) ?? '-infinity'} to ${rn(p.ci.upper) ?? 'infinity'}${p.confidence ? ` (${Math.round(p.confidence * 1000) / 10}%)` : ''}`],
     ['effect size', p.effectSize && `${p.effectSize.name ?? ''} ${rn(p.effectSize.value) ?? ''} (formula: ${p.effectSize.formula}${p.effectSize.formulaStated ? ', stated' : ', not stated in the report'})`.trim()],
     ['equivalence', p.equivalence && [p.equivalence.margin && `margin ±${p.equivalence.margin.text}`, p.equivalence.pLower && `p lower ${p.equivalence.pLower.text}`, p.equivalence.pUpper && `p upper ${p.equivalence.pUpper.text}`, p.equivalence.decisionP && `decided on p ${p.equivalence.decisionP.text}`, p.equivalence.decision].filter(Boolean).join(', ')],
-    ['conclusion', p.claim],
+    ['conclusion', p.claim && CLAIM_WORDS[p.claim](p.difference?.first ?? 'the first condition', p.difference?.second ?? 'the second condition')],
   ];
   for (const [i, g] of (p.groups ?? []).entries()) {
     rows.push([`group ${g.label ?? i + 1}`, [g.n && `n ${g.n.text}`, g.mean && `mean ${g.mean.text}`, g.sd && `SD ${g.sd.text}`].filter(Boolean).join(', ')]);
@@ -123,7 +133,9 @@ function sections(r: AuditResult): Section[] {
   const d = dataSection(r);
   if (d) out.push(d);
   const cautions = r.recommendation?.cautions ?? [];
-  out.push({ title: 'Limits of this review', blocks: [...(cautions.length ? [{ kind: 'list' as const, items: cautions }] : []), { kind: 'para', text: 'tandem checks the design against the procedure and the reported numbers against each other (and against the data when given). It cannot see how the data were collected beyond what the record states, and it does not replace a qualified statistician, an ethics review or a protocol\'s pre-specified analysis plan.' }] });
+  const limits = 'tandem checks the design against the procedure and the reported numbers against each other (and against the data when given). It cannot see how the data were collected beyond what the record states.';
+  const duty = " It does not replace a qualified statistician, an ethics review or a protocol's pre-specified analysis plan.";
+  out.push({ title: 'Limits of this review', blocks: [{ kind: 'para', text: cautions.length ? limits : limits + duty }, ...(cautions.length ? [{ kind: 'list' as const, items: cautions }] : [])] });
   return out;
 }
 

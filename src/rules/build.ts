@@ -45,7 +45,8 @@ export function buildRuleBase(dir: string, files: ParsedFile[]): { rb: RuleBase;
   };
 
   const b = buildItems({ problem, unique, problems });
-  const questions = b.questions(items('questions'));
+  const questionItems = items('questions');
+  const questions = b.questions(questionItems);
   const derived = b.derived(items('derived'), questions);
   const designs = b.designs(items('designs'));
   const predicateIds = new Set(items('predicates').map((it) => String(it.raw.id)));
@@ -66,7 +67,7 @@ export function buildRuleBase(dir: string, files: ParsedFile[]): { rb: RuleBase;
 
   const predicates = b.predicates(items('predicates'), (it) => cond(it, 'when', 2, `predicate '${String(it.raw.id)}'`));
   for (const q of questions) {
-    const it = items('questions').find((x) => x.raw.id === q.id && x.pos === q.pos);
+    const it = questionItems.find((x) => x.pos === q.pos);
     if (it) q.guard = cond(it, 'ask_when', 0, `the ask_when of question '${q.id}'`);
   }
   const rules = b.rules(items('rules'), designs, (it) => cond(it, 'when', 0, `rule '${String(it.raw.id)}'`));
@@ -80,8 +81,9 @@ export function buildRuleBase(dir: string, files: ParsedFile[]): { rb: RuleBase;
   const warnings = b.notes(items('warnings'), 'warning', (it) => st(it, 'warning'));
   const cautions = b.notes(items('cautions'), 'caution', (it) => st(it, 'caution'));
 
+  const procedureItems = items('procedures');
   for (const p of procedures.values()) {
-    const it = items('procedures').find((x) => x.pos === p.pos)!;
+    const it = procedureItems.find((x) => x.pos.file === p.pos.file && x.pos.line === p.pos.line)!;
     p.conditions.forEach((c, i) => {
       if (!conditions.has(c)) problem('dangling-ref', it, ['conditions', i], `procedure '${p.id}' lists unknown condition '${c}'`, `known: ${[...conditions.keys()].join(', ')}`);
     });

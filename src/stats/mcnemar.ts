@@ -48,13 +48,13 @@ export function mcnemar(first: number[], second: number[], o: ProcedureOptions):
   const alpha = 1 - o.confidence;
   const z = -normalQuantile(o.alternative === 'two-sided' ? alpha / 2 : alpha);
   const [lo, hi] = newcombePaired(t, z);
-  const ci: [number, number] = [o.alternative === 'less' ? -1 : lo, o.alternative === 'greater' ? 1 : hi];
+  const ci: [number, number] = [o.alternative === 'less' ? -1 : lo + 0, o.alternative === 'greater' ? 1 : hi + 0];
   const cc = correction ? 'with' : 'without';
   return {
     procedure: 'mcnemar',
     method: 'McNemar test for paired binary outcomes',
     variant: useAsym ? `asymptotic (${o.alternative === 'two-sided' ? 'chi-square' : 'normal'}, ${cc} continuity correction)` : 'exact binomial test on the discordant pairs',
-    estimate: (b - c) / n,
+    estimate: (b - c) / n + 0,
     estimateName: 'difference in proportions (first minus second)',
     ci,
     confidence: o.confidence,

@@ -35,7 +35,7 @@ import { betainc, gammaln, normalCdf, tCdf } from './distributions.js';
 
 const LN_SQRT_2PI = 0.5 * Math.log(2 * Math.PI);
 /** Relative size of a neglected remainder. */
-const EPS = 1e-17;
+const LOG_EPS = Math.log(1e-17);
 /** Beyond this the small tail is taken as 1 minus the big one (relative error then at most ~1e-9). */
 const SUBTRACT_OK = 1e-6;
 const MAX_TERMS = 20000;
@@ -91,8 +91,7 @@ function lowerTail(t: number, df: number, d: number): number {
   if (d === 0) return tCdf(t, df);
   if (df === Infinity) return normalCdf(t - d);
   if (t === 0) return normalCdf(-d);
-  const y = (t * t) / (df + t * t);
-  const s = outwardSum(d, (m) => betainc(y, (m + 1) / 2, df / 2), 'lower');
+  const s = lenthSum(d, t, df, 'lower');
   return Math.min(1, Math.max(0, normalCdf(-d) + 0.5 * s));
 }
 
@@ -102,86 +101,152 @@ function upperTail(t: number, df: number, d: number): number {
   if (d === 0) return tCdf(-t, df);
   if (df === Infinity) return normalCdf(d - t);
   if (t === 0) return normalCdf(d);
-  if (d > 0) {
-    const xc = df / (df + t * t);
-    const s = outwardSum(d, (m) => betainc(xc, df / 2, (m + 1) / 2), 'upper');
-    return Math.min(1, Math.max(0, 0.5 * s));
-  }
+  if (d > 0) return Math.min(1, Math.max(0, 0.5 * lenthSum(d, t, df, 'upper')));
   const viaBig = 1 - lowerTail(t, df, d);
   if (viaBig >= SUBTRACT_OK) return viaBig;
   return smallUpperTail(t, df, -d);
 }
 
 /**
- * sum_m sign_m * |w_m| * I(m), summed outward from the largest term.
- * `kind` says how I(m) moves: 'lower' (I_y((m+1)/2, b), decreasing in m) puts the largest term at
- * or below the mode of the weights; 'upper' (increasing in m) at or above it.
+ * sum_m sign_m |w_m| V_m with V_m = I_y((m+1)/2, df/2) ('lower') or its complement ('upper').
+ *
+ * The even and odd m form two sequences in a = (m+1)/2 + j, j = 0, 1, ... Each starts at the mode
+ * of the weights (m near ncp^2, Benton and Krishnamoorthy 2003) with one direct incomplete beta,
+ * then moves by the recurrence I_y(a+1, b) = I_y(a, b) - T(a), T(a) = y^a (1-y)^b / (a B(a, b)),
+ * T(a+1) = T(a) y (a+b)/(a+1). Toward the largest term (downward for 'lower', upward for 'upper')
+ * the recurrence only adds, which is stable; it is kept in scaled form so tiny tails do not
+ * underflow. Away from it the recurrence subtracts, so the value is recomputed directly whenever
+ * it has fallen a thousandfold since the last direct value. Each direction stops when the terms
+ * have passed their peak and the rest, bounded by a geometric series (the terms are log-concave),
+ * is below 1e-17 of the largest term.
  */
-function outwardSum(d: number, incBeta: (m: number) => number, kind: 'lower' | 'upper'): number {
-  const a = Math.abs(d);
-  const logRatio = Math.log(a / Math.SQRT2);
-  const halfD2 = 0.5 * d * d;
-  const cache = new Map<number, number>();
-  /** log |term m| (-Infinity when the incomplete beta underflows). */
-  const logTerm = (m: number): number => {
-    let v = cache.get(m);
-    if (v === undefined) {
-      const ib = incBeta(m);
-      v = ib > 0 ? -halfD2 + m * logRatio - gammaln(m / 2 + 1) + Math.log(ib) : -Infinity;
-      cache.set(m, v);
-    }
-    return v;
-  };
-  const sign = (m: number): number => (d < 0 && m % 2 === 1 ? -1 : 1);
-
-  // Mode of the weights |w_m|: the ratio |w_{m+1}/w_m| falls through 1 near m = d^2.
-  const mw = Math.max(0, Math.floor(d * d) + 1);
-  const peak = kind === 'lower' ? findPeak(logTerm, 0, mw, false) : findPeak(logTerm, Math.max(0, mw - 2), mw + Math.ceil(60 * a) + 200, true);
-
-  const lp = logTerm(peak);
-  if (lp === -Infinity) return 0;
-  // Sum relative to the peak term, then scale back (keeps tiny tails out of underflow).
-  let total = sign(peak);
-  let absTotal = 1;
-  for (const dir of [1, -1]) {
-    let prev = 1;
-    for (let k = 1; k < MAX_TERMS; k++) {
-      const m = peak + dir * k;
-      if (m < 0) break;
-      const rel = Math.exp(logTerm(m) - lp);
-      total += sign(m) * rel;
-      absTotal += rel;
-      cache.delete(m);
-      if (rel === 0) break;
-      const r = rel / prev;
-      // Past the peak the terms fall at least geometrically with ratio r (log-concave terms).
-      if (rel < EPS * absTotal && r < 1 && (rel * r) / (1 - r) < EPS * absTotal) break;
-      prev = rel;
-    }
+function lenthSum(d: number, t: number, df: number, kind: 'lower' | 'upper'): number {
+  // y = t^2/(df + t^2) and 1 - y, each formed without cancellation or overflow.
+  const r = t > 1 ? df / t / t : 0;
+  const y = t > 1 ? 1 / (1 + r) : (t * t) / (df + t * t);
+  const yc = t > 1 ? r / (1 + r) : df / (df + t * t);
+  const b = df / 2;
+  const lam = 0.5 * d * d;
+  const k = Math.floor(d * d);
+  let total = 0;
+  for (const q of [0, 1]) {
+    const part = paritySum(q, Math.max(0, Math.round((k - q) / 2)), lam, y, yc, b, kind);
+    total += d < 0 && q === 1 ? -part : part;
   }
-  return total * Math.exp(lp);
+  return total;
 }
 
-/**
- * The index of the largest term of a unimodal sequence on [lo, hi], by bisection on the sign of
- * f(m+1) - f(m). Ties between underflowed terms (both -Infinity) count as rising when
- * `risingOnTies` (the underflow lies left of the peak) and as falling otherwise.
- */
-function findPeak(f: (m: number) => number, lo: number, hi: number, risingOnTies: boolean): number {
-  const rising = (m: number): boolean => {
-    const a = f(m);
-    const b = f(m + 1);
-    if (a === -Infinity && b === -Infinity) return risingOnTies;
-    return b > a;
+function paritySum(q: number, j0: number, lam: number, y: number, yc: number, b: number, kind: 'lower' | 'upper'): number {
+  const logLam = Math.log(lam);
+  const logy = Math.log(y);
+  const logyc = Math.log(yc);
+  const lgb = gammaln(b);
+  const a0 = (q + 1) / 2 + j0;
+  const m0 = q + 2 * j0;
+  // log |w_m| = -lam + (m/2) log lam - lgamma(m/2 + 1)
+  const logW0 = -lam + (m0 / 2) * logLam - gammaln(m0 / 2 + 1);
+  const logT0 = a0 * logy + b * logyc + gammaln(a0 + b) - gammaln(a0 + 1) - lgb;
+  const direct = (a: number): number => betainc(y, a, b, kind === 'upper');
+  const v0 = direct(a0);
+  const stableDir = kind === 'lower' ? -1 : 1;
+  let sum = 0;
+  let maxLog = -Infinity;
+
+  /** Adds one term (given by its log); returns true when this direction may stop. */
+  const stopper = (seedLog: number): ((logTerm: number) => boolean) => {
+    let prevLog = seedLog;
+    return (logTerm: number): boolean => {
+      if (logTerm > -745) sum += Math.exp(logTerm);
+      if (logTerm > maxLog) maxLog = logTerm;
+      const falling = logTerm < prevLog;
+      const r = Math.exp(logTerm - prevLog);
+      prevLog = logTerm;
+      if (!falling) return false;
+      if (logTerm === -Infinity) return true;
+      return r < 1 && logTerm + Math.log(r / (1 - r)) - maxLog < LOG_EPS;
+    };
   };
-  // Widen hi while the sequence still rises there (the 'upper' peak may lie further out).
-  while (rising(hi) && hi < 1e7) hi *= 2;
-  while (lo < hi) {
-    const mid = Math.floor((lo + hi) / 2);
-    if (rising(mid)) lo = mid + 1;
-    else hi = mid;
+
+  // The seed term.
+  let seedLog: number;
+  {
+    // Scaled value for the stable walk: V = v * e^S.
+    let S: number;
+    let v: number;
+    if (v0 > 1e-290) {
+      S = Math.log(v0);
+      v = 1;
+    } else {
+      // Underflowed seed: V is at least T and is about T/(1 - r) when the ratio r is below 1;
+      // every term near here is negligible, so this estimate only needs the right magnitude.
+      S = logT0;
+      const r = kind === 'lower' ? Math.exp(logy + Math.log(a0 + b) - Math.log(a0 + 1)) : 0;
+      v = r < 0.9 ? 1 / (1 - r) : 1;
+    }
+    seedLog = logW0 + S + Math.log(v);
+    sum += Math.exp(seedLog);
+    maxLog = seedLog;
+    const stopS = stopper(seedLog);
+    // Stable walk.
+    let logW = logW0;
+    let logT = logT0;
+    let a = a0;
+    let m = m0;
+    for (let step = 0; step < MAX_TERMS; step++) {
+      if (stableDir === -1) {
+        if (a - 1 < 0.5) break;
+        // T(a-1) = T(a) * a / (y (a - 1 + b)); V(a-1) = V(a) + T(a-1)
+        logT += Math.log(a) - logy - Math.log(a - 1 + b);
+        a -= 1;
+        logW += -logLam + Math.log(m / 2);
+        m -= 2;
+        v += Math.exp(logT - S);
+      } else {
+        // V(a+1) = V(a) + T(a); T(a+1) = T(a) * y (a + b)/(a + 1)
+        v += Math.exp(logT - S);
+        logT += logy + Math.log(a + b) - Math.log(a + 1);
+        a += 1;
+        m += 2;
+        logW += logLam - Math.log(m / 2);
+      }
+      if (v > 1e250) { v /= 1e250; S += 575.6462732485114; } // ln(1e250)
+      if (stopS(logW + S + Math.log(v))) break;
+    }
   }
-  return lo;
+  if (v0 > 1e-290) {
+    // Unstable walk, away from the peak: both factors fall, so few steps are needed.
+    const stopU = stopper(seedLog);
+    let V = v0;
+    let Vseed = v0;
+    let logW = logW0;
+    let logT = logT0;
+    let a = a0;
+    let m = m0;
+    for (let step = 0; step < MAX_TERMS; step++) {
+      if (stableDir === -1) {
+        // upward: V(a+1) = V(a) - T(a)
+        V -= Math.exp(logT);
+        logT += logy + Math.log(a + b) - Math.log(a + 1);
+        a += 1;
+        m += 2;
+        logW += logLam - Math.log(m / 2);
+      } else {
+        if (a - 1 < 0.5) break;
+        // downward: V(a-1) = V(a) - T(a-1)
+        logT += Math.log(a) - logy - Math.log(a - 1 + b);
+        a -= 1;
+        logW += -logLam + Math.log(m / 2);
+        m -= 2;
+        V -= Math.exp(logT);
+      }
+      if (!(V > 1e-3 * Vseed)) {
+        V = direct(a);
+        Vseed = V;
+      }
+      if (stopU(V > 0 ? logW + Math.log(V) : -Infinity)) break;
+    }
+  }
+  return sum;
 }
 
 /**

@@ -23,6 +23,7 @@
  * Example: signed-rank with 10 differences, 95% two-sided: q = 9 (P(W+ <= 8) = 0.0244 < 0.025
  * <= P(W+ <= 9) = 0.0322), so the interval is Walsh averages 9 and 47 of 55, confidence 0.9512.
  */
+import { StatsError } from '../errors.js';
 import { normalCdf, normalQuantile, normalSf } from './distributions.js';
 import { lowerQuantile, type Tails } from './rank-exact.js';
 import type { Alternative } from './types.js';
@@ -105,4 +106,15 @@ function ranksFor(k: number, size: number, left: number, alternative: Alternativ
 /** Percent with up to 2 decimals, for notes. */
 export function pct(x: number): string {
   return `${Number((100 * x).toFixed(2))}%`;
+}
+
+/** The data are finite, but an estimate or interval end beyond about 1.8e308 cannot be reported. */
+export function assertRepresentable(estimate: number, ci: [number, number], alternative: Alternative): void {
+  const ends = [alternative === 'less' ? 0 : ci[0], alternative === 'greater' ? 0 : ci[1]];
+  if (![estimate, ...ends].every(Number.isFinite)) {
+    throw new StatsError(
+      'not-finite',
+      'the estimate or its interval exceeds the range of double-precision numbers (about 1.8e308); rescale the data (e.g. change the unit) and run again',
+    );
+  }
 }

@@ -29,7 +29,7 @@
  * PS = 11/12 = 0.917.
  */
 import { StatsError } from '../errors.js';
-import { exactIntervalRanks, exactPValue, normalIntervalRanks, normalPValue, pct, type IntervalRanks } from './rank-inference.js';
+import { assertRepresentable, exactIntervalRanks, exactPValue, normalIntervalRanks, normalPValue, pct, type IntervalRanks } from './rank-inference.js';
 import { RANK_SUM_EXACT_MAX_COST, rankSumCost, rankSumCounts, tailsOf } from './rank-exact.js';
 import { MatrixSelector, shiftMatrix } from './rank-select.js';
 import { superiorityInterval } from './rank-superiority.js';
@@ -70,16 +70,19 @@ export function rankSum(first: number[], second: number[], o: ProcedureOptions):
     ? exactIntervalRanks(rankSumCounts(n1, n2), size, o.confidence, o.alternative)
     : normalIntervalRanks(size, Math.sqrt((size * (N + 1)) / 12), o.confidence, o.alternative);
   const ci: [number, number] = [
-    ranks.lower === null ? -Infinity : sel.kth(ranks.lower) / f,
-    ranks.upper === null ? Infinity : sel.kth(ranks.upper) / f,
+    // `+ 0` folds -0 into 0 for the report.
+    ranks.lower === null ? -Infinity : sel.kth(ranks.lower) / f + 0,
+    ranks.upper === null ? Infinity : sel.kth(ranks.upper) / f + 0,
   ];
+  const estimate = sel.median() / f + 0;
+  assertRepresentable(estimate, ci, o.alternative);
   const ps = countSuperiority(x, y) / size;
   const psCi = superiorityInterval(ps, n1, n2, o.confidence, o.alternative);
   return {
     procedure: 'rank-sum',
     method: 'Wilcoxon-Mann-Whitney rank-sum test',
     variant: test.variant,
-    estimate: sel.median() / f,
+    estimate,
     estimateName: 'Hodges-Lehmann shift (median of all differences first minus second)',
     ci,
     confidence: o.confidence,

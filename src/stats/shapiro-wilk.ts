@@ -39,7 +39,7 @@ export function shapiroWilk(sorted: ArrayLike<number>): { w: number; pValue: num
   if (!(range > 0)) throw new RangeError('Shapiro-Wilk needs values that are not all equal');
   const a = coefficients(n);
   const w = statistic(sorted, a, range);
-  return { w, pValue: pValue(w, n) };
+  return { w, pValue: shapiroPValue(w, n) };
 }
 
 /** The half-vector of coefficients a_1 >= a_2 >= ... (for the lowest order statistics, sign +). */
@@ -108,7 +108,8 @@ function statistic(x: ArrayLike<number>, a: Float64Array, range: number): number
   return Math.min(1, Math.max(0, 1 - w1));
 }
 
-function pValue(w: number, n: number): number {
+/** Royston's p-value for a given W and sample size n (3..5000). */
+export function shapiroPValue(w: number, n: number): number {
   if (n === 3) {
     const p = (6 / Math.PI) * (Math.asin(Math.sqrt(w)) - Math.asin(Math.sqrt(0.75)));
     return Math.min(1, Math.max(0, p));

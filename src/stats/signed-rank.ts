@@ -27,7 +27,7 @@
  * [0.15, 2.65] (Walsh averages 9 and 47 of 55); scipy 1.10 gives the same p-value.
  */
 import { StatsError } from '../errors.js';
-import { exactIntervalRanks, exactPValue, normalIntervalRanks, normalPValue, pct, type IntervalRanks } from './rank-inference.js';
+import { assertRepresentable, exactIntervalRanks, exactPValue, normalIntervalRanks, normalPValue, pct, type IntervalRanks } from './rank-inference.js';
 import { SIGNED_RANK_EXACT_MAX, signedRankCounts, tailsOf, twoPow } from './rank-exact.js';
 import { MatrixSelector, walshMatrix } from './rank-select.js';
 import { roundingTolerance, shiftedCopy, signedRankSweep, type SignedRankSummary } from './rank-ties.js';
@@ -69,15 +69,18 @@ export function signedRank(first: number[], second: number[], o: ProcedureOption
     ? exactIntervalRanks(signedRankCounts(n), size, o.confidence, o.alternative, twoPow(n))
     : normalIntervalRanks(size, Math.sqrt((n * (n + 1) * (2 * n + 1)) / 24), o.confidence, o.alternative);
   const ci: [number, number] = [
-    ranks.lower === null ? -Infinity : sel.kth(ranks.lower) / f,
-    ranks.upper === null ? Infinity : sel.kth(ranks.upper) / f,
+    // `+ 0` folds -0 into 0 for the report.
+    ranks.lower === null ? -Infinity : sel.kth(ranks.lower) / f + 0,
+    ranks.upper === null ? Infinity : sel.kth(ranks.upper) / f + 0,
   ];
+  const estimate = sel.median() / f + 0;
+  assertRepresentable(estimate, ci, o.alternative);
   const top = (s.nonZero * (s.nonZero + 1)) / 2;
   return {
     procedure: 'signed-rank',
     method: 'Wilcoxon signed-rank test on the paired differences',
     variant: test.variant,
-    estimate: sel.median() / f,
+    estimate,
     estimateName: 'Hodges-Lehmann estimate (median of the Walsh averages of first minus second)',
     ci,
     confidence: o.confidence,

@@ -50,7 +50,8 @@ export function twoProportions(first: number[], second: number[], o: ProcedureOp
   const alpha = 1 - o.confidence;
   const z = -normalQuantile(o.alternative === 'two-sided' ? alpha / 2 : alpha);
   const [lo, hi] = newcombeIndependent(x1, n1, x2, n2, z);
-  const or = conditionalOddsRatio(x1, n1, x2, n2, o.confidence, o.alternative);
+  // With no events (or only events) the table has no odds to compare.
+  const or = K === 0 || K === N ? null : conditionalOddsRatio(x1, n1, x2, n2, o.confidence, o.alternative);
   const why =
     o.method === 'exact'
       ? 'requested'
@@ -65,9 +66,9 @@ export function twoProportions(first: number[], second: number[], o: ProcedureOp
     procedure: 'two-proportions',
     method: 'difference of two independent proportions',
     variant: fisherPrimary ? "Fisher's exact test" : `z test with pooled proportion${zt?.yates ? ' and continuity correction' : ''}`,
-    estimate: p1 - p2,
+    estimate: p1 - p2 + 0,
     estimateName: 'difference in proportions (first minus second)',
-    ci: [o.alternative === 'less' ? -1 : lo, o.alternative === 'greater' ? 1 : hi],
+    ci: [o.alternative === 'less' ? -1 : lo + 0, o.alternative === 'greater' ? 1 : hi + 0],
     confidence: o.confidence,
     statistic: fisherPrimary ? x1 : (zt as ZTest).z,
     statisticName: fisherPrimary ? 'x1 (events in first group)' : 'z',
@@ -76,20 +77,22 @@ export function twoProportions(first: number[], second: number[], o: ProcedureOp
     alternative: o.alternative,
     nullValue: 0,
     n: { first: n1, second: n2 },
-    effectSize: {
-      name: 'odds ratio (conditional maximum likelihood)',
-      formula: 'odds of the event in first / odds in second, estimated given the table margins (as with Fisher\'s test)',
-      value: or.estimate,
-      ci: or.ci,
-    },
+    effectSize: or === null
+      ? null
+      : {
+          name: 'odds ratio (conditional maximum likelihood)',
+          formula: "odds of the event in first / odds in second, estimated given the table margins (as with Fisher's test)",
+          value: or.estimate,
+          ci: or.ci,
+        },
     notes: [
       `events: ${x1} of ${n1} in first, ${x2} of ${n2} in second`,
       fisherPrimary
         ? `primary p-value: Fisher's exact test (${why}); two-sided as the sum over tables no more probable than the observed`
         : `primary p-value: z test with pooled proportion (${why}); Fisher's exact p-value is in details`,
       `interval: Newcombe (1998a) method 10 (hybrid of two Wilson score intervals)${o.alternative === 'two-sided' ? '' : `; one-sided (${o.alternative === 'greater' ? 'upper end 1' : 'lower end -1'})`}`,
-      ...(or.estimate === 0 || or.estimate === Infinity ? [`the odds ratio is ${or.estimate === 0 ? '0' : 'infinite'}: a cell of the 2x2 table is empty; its interval is one-sided`] : []),
-      ...(zt === null ? ['z test not computed: all values in both groups are the same outcome (pooled proportion 0 or 1)'] : []),
+      ...(or !== null && (or.estimate === 0 || or.estimate === Infinity) ? [`the odds ratio is ${or.estimate === 0 ? '0' : 'infinite'}: a cell of the 2x2 table is empty; its interval is one-sided`] : []),
+      ...(zt === null ? ['z test and odds ratio not computed: all values in both groups are the same outcome (pooled proportion 0 or 1)'] : []),
     ],
     details: {
       eventsFirst: x1,

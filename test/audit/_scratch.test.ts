@@ -3,7 +3,7 @@ import { run } from '../../src/cli/run.js';
 import { memoryIO } from '../helpers/io.js';
 
 it('scratch', async () => {
-  const io = memoryIO({ cwd: '/tmp/aud' });
-  const code = await run(['audit', ...(process.env.ARGS ?? 'bakery.yaml').split(' ')], io);
+  const io = memoryIO({ cwd: process.env.CWD ?? '/tmp/aud', env: { TANDEM_DEBUG: '1' } });
+  const code = await run((process.env.CMD ?? 'audit').split(' ').concat((process.env.ARGS ?? 'bakery.yaml').split(' ')), io);
   console.log(io.out() + '\n---stderr---\n' + io.err() + '\nexit ' + code);
 });

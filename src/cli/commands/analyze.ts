@@ -17,7 +17,6 @@ import { quickLayout } from '../../data/quick-layout.js';
 import { readTable } from '../../data/read.js';
 import type { LayoutSpec, PreparedData } from '../../data/types.js';
 import { writeFileAtomic } from '../../fs/atomic.js';
-import { readPlan } from '../../plan/read.js';
 import { PROCEDURES, procedureName, sensitivityAllowed } from '../../plan/procedures.js';
 import { buildAnalysis } from '../../report/analysis.js';
 import { analysisJson } from '../../report/analysis-json.js';
@@ -160,6 +159,9 @@ async function fromPlan(p: Parsed, path: string, shown: string): Promise<Job> {
         `(edit the plan and record why, or drop the plan for quick mode)`,
     );
   }
+  // Loaded here, not at the top: the plan reader brings the JSON Schema validator, which quick
+  // mode does not need.
+  const { readPlan } = await import('../../plan/read.js');
   const plan = await readPlan(path);
   const { missing, delimiter, ...layout } = plan.data;
   const id = plan.procedure.id;
