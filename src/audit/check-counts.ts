@@ -56,7 +56,9 @@ export function expectedDf(ctx: AuditContext): DfExpectation | undefined {
   const used = ctx.used;
   const { n } = ctx.r;
   if (used === 'paired-t' || used === 'paired-equivalence') {
-    const pairs = n && !countsObservations(ctx) ? n.value : groupCounts(ctx)?.[0] === groupCounts(ctx)?.[1] ? groupCounts(ctx)?.[0] : undefined;
+    // From n (halved when it counts measurements) or equal per-condition counts; not from df itself.
+    const g = groupCounts(ctx);
+    const pairs = n ? (countsObservations(ctx) ? n.value / 2 : n.value) : g && g[0] === g[1] ? g[0] : undefined;
     return pairs !== undefined ? { range: [pairs - 1, pairs - 1], basis: `pairs - 1 = ${pairs} - 1` } : undefined;
   }
   const g = groupCounts(ctx);

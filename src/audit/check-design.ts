@@ -53,9 +53,11 @@ export function checkDesign(ctx: AuditContext, out: Collector): void {
   if (design?.family === 'independent' && usedPaired) {
     out.add('paired-test-on-unmatched',
       `The study facts describe independent groups (${design.label ?? kind}): no ${unit} in one condition is linked to a particular ${unit} in the other. ${ctx.usedLabel} needs such a link; without one, the "pairs" depend on the order of the rows and the result can change by re-sorting.`,
-      `${instead} for independent groups (Welch's t is the usual default), with n1 and n2 counted per group.`);
+      `${recommended ? `Re-run the analysis with the ${recommended}` : "Re-run the analysis with a procedure for independent groups (Welch's t is the usual default)"}, with n1 and n2 counted per group.`);
   }
-  if (r.pairing === 'row-order' || (kind === 'arbitrary-pairing' && usedPaired)) {
+  // Pairing findings concern analyses that used the pairs (or whose procedure is not known).
+  const pairsUsed = usedPaired || fam === undefined;
+  if ((r.pairing === 'row-order' && pairsUsed) || (kind === 'arbitrary-pairing' && usedPaired)) {
     const noLink = kind === 'arbitrary-pairing' || design?.family === 'independent';
     out.add('row-order-pairing',
       noLink
@@ -65,7 +67,7 @@ export function checkDesign(ctx: AuditContext, out: Collector): void {
         ? 'Analyse the two sets as independent groups (Welch two-sample t by default).'
         : `Join the two measurements by the ${unit}'s identifier, drop incomplete pairs as whole pairs, and re-run the paired analysis.`);
   }
-  if ((kind === 'matched-after' && usedPaired) || r.pairing === 'matched-after') {
+  if ((kind === 'matched-after' && usedPaired) || (r.pairing === 'matched-after' && pairsUsed)) {
     out.add('matched-after',
       `The ${unit}s were matched after the outcomes were collected. A match made while the outcomes can be seen can follow them, so the pairing may build in the very difference being tested; and ${unit}s left without a match are dropped.`,
       'Report the analysis as independent groups (with the matching variable as a covariate if needed), or state plainly that the matching was done after the fact and show that the result holds without it.');

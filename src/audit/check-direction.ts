@@ -46,7 +46,7 @@ function checkSignAgainstAlternative(ctx: AuditContext, out: Collector, alt: Alt
       ? `The alternative says ${expect} (${ctx.subtraction} ${alt === 'greater' ? '> 0' : '< 0'}), but the ${what} points the other way; the one-sided p-value for the stated alternative is then above 0.5, yet the report gives p = ${pValue!.text}. Either the subtraction was reversed, or the p-value belongs to the opposite alternative.`
       : `The alternative says ${expect} (${ctx.subtraction} ${alt === 'greater' ? '> 0' : '< 0'}), but the ${what} points the other way: the data lean against the stated alternative.`,
     small
-      ? 'Re-run with the subtraction and alternative as pre-declared; report the one-sided p-value for that alternative (it will be above 0.5), and do not switch the alternative after seeing the data.'
+      ? `Report the p-value of the alternative that was fixed before the data were seen (for "${alt}" with ${ctx.subtraction} it is above 0.5 here), and check that the subtraction in the software matches the one stated; never switch the alternative after seeing the data.`
       : 'Report the result as it is: no support for the stated direction. Do not switch the alternative after seeing the data.');
 }
 

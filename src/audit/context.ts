@@ -54,9 +54,13 @@ export function makeContext(record: AuditRecord, rec: Recommendation | null, rec
     : record.statedDesign
       ? { ...record.statedDesign }
       : null;
-  const confidence = r.confidence ?? (r.alpha ? 1 - r.alpha.value : 0.95);
-  // Rounded so that 1 - 0.95 reads 0.05 in messages.
-  const alpha = r.alpha?.value ?? Math.round((1 - confidence) * 1e9) / 1e9;
+
+  // An equivalence test at level alpha goes with the 1 - 2 alpha interval (a 90% interval for
+  // alpha = 0.05); every other test with the 1 - alpha interval. Rounded so 1 - 0.95 reads 0.05.
+  const equivalence = used?.endsWith('equivalence') || r.equivalence !== undefined;
+  const confidence = r.confidence ?? (r.alpha ? 1 - (equivalence ? 2 : 1) * r.alpha.value : equivalence ? 0.9 : 0.95);
+  const fromLevel = r.confidence !== undefined ? (equivalence ? (1 - r.confidence) / 2 : 1 - r.confidence) : 0.05;
+  const alpha = r.alpha?.value ?? Math.round(fromLevel * 1e9) / 1e9;
   const [first, second] = orderedGroups(r);
   const ctx: AuditContext = {
     record,

@@ -33,13 +33,15 @@ export function auditOnData(path: string, shown: string, ctx: AuditContext, out:
   }
   const answers = ctx.record.answers ?? {};
   const outcome: OutcomeSpec = { binary: answers.outcome_type === 'binary', ...(typeof answers.event === 'string' && answers.event ? { event: answers.event } : {}) };
-  const table = readTable(path, columnRequests(mapping, outcome), { missing: ctx.record.missing }, shown);
+  const table = readTable(path, columnRequests(mapping, outcome), { ...(ctx.record.missing ? { missing: ctx.record.missing } : {}), ...(ctx.record.delimiter ? { delimiter: ctx.record.delimiter } : {}) }, shown);
   const account = accountPairing(table, mapping, outcome);
   const prepared = tryPrepare(table, mapping, outcome);
 
   const colleague = ctx.used
     ? runSide(ctx.used, colleagueInput(ctx.used, mapping, account, prepared), optionsFor(ctx, 'colleague'), 'as the colleague ran it')
     : { result: null, why: 'the record does not name a procedure that tandem can run' };
+  const how = ctx.used ? feedNote(ctx.used, mapping, prepared) : undefined;
+  if (how) account.lines.push(how);
   // When the colleague used the recommended procedure, one column says it all.
   const recId = ctx.recommended && ctx.recommended !== ctx.used ? ctx.recommended : null;
   const recommended = recId
@@ -85,14 +87,24 @@ function colleagueInput(id: ProcedureId, m: LayoutSpec, acc: PairingAccount, pre
   return undefined;
 }
 
+/** Says how the colleague's procedure was fed when the data's layout is not its own. */
+function feedNote(id: ProcedureId, m: LayoutSpec, prepared?: PreparedData): string | undefined {
+  const kind = procedureDesign(id);
+  if (prepared && prepared.input.kind === kind) return undefined;
+  if (kind === 'independent') return "for the colleague's independent-groups procedure every available value of each condition was used, ignoring the pairs";
+  if (kind === 'paired' && m.layout === 'crossover') return "for the colleague's paired procedure each subject's two values were taken by condition, ignoring the period";
+  if (kind === 'paired') return "for the colleague's paired procedure the values were paired by their position in each list, as a row-by-row analysis does";
+  return undefined;
+}
+
 function optionsFor(ctx: AuditContext, side: 'colleague' | 'recommended'): Partial<ProcedureOptions> {
   const r = ctx.r;
   const margin = r.equivalence?.margin?.value ?? ctx.rec?.procedure.margin;
   if (side === 'colleague') {
-    return { alternative: r.alternative ?? 'two-sided', confidence: r.confidence ?? 0.95, ...(margin !== undefined ? { margin } : {}) };
+    return { alternative: r.alternative ?? 'two-sided', confidence: ctx.confidence, ...(margin !== undefined ? { margin } : {}) };
   }
   const p = ctx.rec?.procedure;
-  if (!p) return { alternative: r.alternative ?? 'two-sided', confidence: r.confidence ?? 0.95, ...(margin !== undefined ? { margin } : {}) };
+  if (!p) return { alternative: r.alternative ?? 'two-sided', confidence: ctx.confidence, ...(margin !== undefined ? { margin } : {}) };
   return { alternative: p.alternative, confidence: p.confidence ?? 0.95, ...(margin !== undefined ? { margin } : {}) };
 }
 

@@ -125,7 +125,7 @@ export function accountPairing(table: Table, m: LayoutSpec, outcome: OutcomeSpec
   if (acc.unmatched.length > 0) acc.lines.push(`${acc.unmatched.length} id${acc.unmatched.length === 1 ? '' : 's'} measured under one condition only: ${acc.unmatched.slice(0, 8).join(', ')}${acc.unmatched.length > 8 ? ', ...' : ''}`);
   if (acc.duplicates.length > 0) acc.lines.push(`${acc.duplicates.length} repeated id${acc.duplicates.length === 1 ? '' : 's'}: ${acc.duplicates.slice(0, 6).map((d) => `${d.id} (${d.times} times, lines ${d.lines.join(', ')})`).join('; ')}`);
   if (acc.pairs !== undefined) acc.lines.push(`${acc.pairs} complete pair${acc.pairs === 1 ? '' : 's'}`);
-  acc.lines.push(`values per condition if nothing is paired: ${acc.firstValues.length} and ${acc.secondValues.length}`);
+  acc.lines.push(`${acc.pairs === undefined ? 'values per condition' : 'values per condition if nothing is paired'}: ${acc.firstValues.length} and ${acc.secondValues.length}`);
   return acc;
 }
 

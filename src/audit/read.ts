@@ -65,9 +65,10 @@ export async function readAuditRecord(path: string, shown = path, rulesDir?: str
     record.answers = plan.answers;
     record.answersFrom = refs.planFile;
     if (!record.mapping) {
-      const { missing, delimiter: _d, ...mapping } = plan.data;
+      const { missing, delimiter, ...mapping } = plan.data;
       record.mapping = mapping as DataMapping;
       if (missing && !record.missing) record.missing = missing;
+      if (delimiter && !record.delimiter) record.delimiter = delimiter;
     }
   } else if (record.answers) {
     const problems = checkInlineAnswers(loaded, rules(), record.answers);

@@ -107,6 +107,7 @@ export function parseRecord(loaded: LoadedYaml, schema: object): ParsedRecord {
   if (study.design) record.statedDesign = { family: study.design.family, ...(study.design.kind ? { kind: String(study.design.kind) } : {}) };
   if (v.data?.mapping) record.mapping = v.data.mapping as DataMapping;
   if (Array.isArray(v.data?.missing)) record.missing = v.data.missing.map(String);
+  if (typeof v.data?.delimiter === 'string') record.delimiter = v.data.delimiter;
   const refs: ParsedRecord['refs'] = {};
   if (typeof study.answersFile === 'string') refs.answersFile = study.answersFile;
   if (typeof study.planFile === 'string') refs.planFile = study.planFile;

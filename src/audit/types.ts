@@ -119,6 +119,7 @@ export interface AuditRecord {
   /** How to read `--data` (from the record, or from the referenced plan). */
   mapping?: DataMapping | LayoutSpec;
   missing?: string[];
+  delimiter?: ',' | ';' | '\t' | 'auto';
 }
 
 export type Severity = 'error' | 'warning' | 'note';

@@ -21,21 +21,22 @@ export function binaryMap(values: string[], event: string | undefined, where: st
   const listed = distinct.map((v) => `'${v}'`).join(', ');
   const map = new Map<string, 0 | 1>();
   if (event !== undefined) {
-    const others = distinct.filter((v) => v !== event);
-    if (others.length > 1) {
-      throw new InputError(`${where}: a binary outcome has two values, the event '${event}' and one other; found ${listed}`);
-    }
-    if (others.length === distinct.length && distinct.length > 1) {
+    if (!distinct.includes(event) && distinct.length > 1) {
       throw new InputError(`${where}: the event value '${event}' does not occur; the values are ${listed} (values are case-sensitive)`);
+    }
+    if (distinct.length > 2) {
+      throw new InputError(`${where}: a binary outcome has two values, the event '${event}' and one other; found ${listed}`);
     }
     for (const v of distinct) map.set(v, v === event ? 1 : 0);
     return map;
   }
-  if (distinct.length > 2) {
-    throw new InputError(`${where}: a binary outcome has two values; found ${distinct.length}: ${listed}`);
-  }
+  // Without an event named, letter case does not matter: 'Yes' and 'yes' are the same answer.
   const lower = distinct.map((v) => v.toLowerCase());
-  const pair = PAIRS.find(([yes, no]) => lower.every((v) => v === yes || v === no));
+  const kinds = [...new Set(lower)];
+  if (kinds.length > 2) {
+    throw new InputError(`${where}: a binary outcome has two values; found ${kinds.length}: ${listed}`);
+  }
+  const pair = PAIRS.find(([yes, no]) => kinds.every((v) => v === yes || v === no));
   if (!pair) {
     throw new InputError(`${where}: cannot tell which value is the event among ${listed}`, [
       { code: 'data', message: 'unrecognised binary values', hint: 'give --event VALUE (in a plan: study.event); 0/1, yes/no and true/false are recognised' },

@@ -27,6 +27,9 @@ export function prepareCrossover(table: Table, m: Crossover, outcome: OutcomeSpe
   }
   const notes: string[] = [];
   const seq = category(table, m.sequence);
+  if (seq.levelCount > 2) {
+    throw new InputError(`${table.file}: column '${m.sequence}' has ${seq.levelCount} sequences (${listLevels(seq)}); a 2x2 crossover has two`);
+  }
   const lv = twoLevels(seq, m.firstThenSecond, m.secondThenFirst, table.file);
   if (m.id !== undefined) {
     const idCol = category(table, m.id);

@@ -21,7 +21,8 @@ export function questionsOnPath(rb: RuleBase, answers: Answers): Question[] {
 
 /**
  * Why a value does not fit the question, or null when it fits. Blank ('') fits an optional
- * question only. Numbers must be finite, whole when the question says so, and inside min..max.
+ * question only. Numbers must be finite, whole when the question says so, and inside min..max
+ * (strictly above min when `minExclusive`).
  */
 export function answerProblem(q: Question, v: AnswerValue | undefined | null): string | null {
   if (v === undefined || v === null || v === '') return q.optional ? null : `'${q.id}' needs an answer`;
@@ -32,6 +33,7 @@ export function answerProblem(q: Question, v: AnswerValue | undefined | null): s
   if (q.type === 'number') {
     if (typeof v !== 'number' || !Number.isFinite(v)) return `'${q.id}' must be a number; got ${JSON.stringify(v)}`;
     if (q.integer && !Number.isInteger(v)) return `'${q.id}' must be a whole number; got ${v}`;
+    if (q.min !== undefined && q.minExclusive && v <= q.min) return `'${q.id}' must be greater than ${q.min}; got ${v}`;
     if (q.min !== undefined && v < q.min) return `'${q.id}' must be at least ${q.min}; got ${v}`;
     if (q.max !== undefined && v > q.max) return `'${q.id}' must be at most ${q.max}; got ${v}`;
     return null;

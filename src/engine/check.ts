@@ -7,9 +7,9 @@
  * Rules never matched, questions never asked and catalogue entries never used are reported too.
  */
 import type { Problem } from '../problems.js';
-import type { AnswerValue, Answers } from './types.js';
-import { answerProblem } from './ask.js';
-import { evaluate, factsOf, leavesOf } from './conditions.js';
+import type { Answers } from './types.js';
+import { evaluate, factsOf } from './conditions.js';
+import { allConditions, candidates, thresholds } from './values.js';
 import { decide, type Decision } from './decide.js';
 import { refreshDerived } from './facts.js';
 import type { Condition, Pos, QuestionDef, RuleBase } from './model.js';
@@ -32,89 +32,6 @@ export interface CheckReport {
 /** Beyond this many paths the check stops and reports it (a rule base grown out of hand). */
 export const MAX_PATHS = 2_000_000;
 const EXAMPLES_PER_STAGE = 12;
-
-interface RatioThreshold {
-  num: string;
-  den: string;
-  t: number;
-  op: string;
-}
-interface Threshold {
-  t: number;
-  op: string;
-}
-
-function allConditions(rb: RuleBase): Condition[] {
-  const out: (Condition | undefined)[] = [
-    ...rb.questions.map((q) => q.guard),
-    ...[...rb.predicates.values()].map((p) => p.when),
-    ...rb.rules.map((r) => r.when),
-    ...rb.selections.map((s) => s.when),
-    ...[...rb.conditions.values()].map((c) => c.when),
-    ...[...rb.differences, ...rb.hypotheses, ...rb.scope, ...rb.warnings, ...rb.cautions].map((s) => s.when),
-  ];
-  return out.filter((c): c is Condition => c !== undefined);
-}
-
-/** Thresholds per number fact, pushed through min/max to their arguments; ratios kept apart. */
-function thresholds(rb: RuleBase): { direct: Map<string, Threshold[]>; ratios: RatioThreshold[] } {
-  const direct = new Map<string, Threshold[]>();
-  const ratios: RatioThreshold[] = [];
-  const derived = new Map(rb.derived.map((d) => [d.id, d]));
-  const push = (fact: string, t: number, op: string): void => {
-    const d = derived.get(fact);
-    if (d?.op === 'ratio') ratios.push({ num: d.args[0], den: d.args[1], t, op: 'equals' });
-    else if (d) d.args.forEach((a) => push(a, t, op));
-    else {
-      if (!direct.has(fact)) direct.set(fact, []);
-      direct.get(fact)!.push({ t, op });
-    }
-  };
-  for (const c of allConditions(rb)) {
-    for (const leaf of leavesOf(c, rb.predicates)) {
-      if (['gt', 'gte', 'lt', 'lte', 'equals'].includes(leaf.op) && typeof leaf.value === 'number') push(leaf.fact, leaf.value, leaf.op);
-    }
-  }
-  return { direct, ratios };
-}
-
-/**
- * Values on both sides of a threshold: for `gte t` / `lt t` the last value below t and t
- * itself; for `gt t` / `lte t` t itself and the first value above; for `equals t` all three.
- */
-function around(t: number, integer: boolean, op: string): number[] {
-  const d = integer ? 1 : Math.max(1e-6, Math.abs(t) * 1e-6);
-  const lo = integer ? Math.ceil(t) : t;
-  const hi = integer ? Math.floor(t) : t;
-  if (op === 'gte' || op === 'lt') return [lo - d, lo];
-  if (op === 'gt' || op === 'lte') return [hi, hi + d];
-  return integer && !Number.isInteger(t) ? [Math.floor(t), Math.ceil(t)] : [t - d, t, t + d];
-}
-
-function candidates(q: QuestionDef, facts: Facts, th: ReturnType<typeof thresholds>): AnswerValue[] {
-  if (q.type === 'choice') return (q.choices ?? []).map((c) => c.value);
-  const blank: AnswerValue[] = q.optional ? [''] : [];
-  if (q.type === 'text') return ['(example)', ...blank];
-  const raw = new Set<number>();
-  for (const { t, op } of th.direct.get(q.id) ?? []) around(t, !!q.integer, op).forEach((v) => raw.add(v));
-  const num = (id: string): number | undefined => {
-    const v = facts.get(id);
-    return typeof v === 'number' ? v : undefined;
-  };
-  for (const r of th.ratios) {
-    const a = num(r.num);
-    const b = num(r.den);
-    // A ratio's threshold moves with the other operand, so both sides of it are taken.
-    if (r.den === q.id && a !== undefined && r.t !== 0) around(a / r.t, !!q.integer, r.op).forEach((v) => raw.add(v));
-    if (r.num === q.id && b !== undefined) around(b * r.t, !!q.integer, r.op).forEach((v) => raw.add(v));
-  }
-  const ok = [...raw].filter((v) => answerProblem(q, v) === null).sort((x, y) => x - y);
-  if (ok.length === 0) {
-    const typical = q.min === undefined ? 1 : q.minExclusive ? q.min + 1 : q.min;
-    ok.push(answerProblem(q, typical) === null ? typical : (q.max ?? 1));
-  }
-  return [...ok, ...blank];
-}
 
 type Stage = NonNullable<Decision['failed']>;
 
@@ -148,6 +65,14 @@ export function decidingFacts(rb: RuleBase): Set<string> {
 export function checkRuleBase(rb: RuleBase): CheckReport {
   const th = thresholds(rb);
   const deciding = decidingFacts(rb);
+  const readBy = (xs: { when?: Condition }[]): Set<string> => new Set(xs.flatMap((x) => (x.when ? [...factsOf(x.when, rb.predicates)] : [])));
+  const stageFacts: Record<Stage, Set<string>> = {
+    rules: readBy(rb.rules),
+    selections: readBy(rb.selections),
+    differences: readBy(rb.differences),
+    hypotheses: readBy(rb.hypotheses),
+    scope: readBy(rb.scope),
+  };
   const rotation = new Map<string, number>();
   const asked = new Set<string>();
   const used = new Set<string>();
@@ -173,7 +98,10 @@ export function checkRuleBase(rb: RuleBase): CheckReport {
     if (d.design) used.add('design:' + d.design.kind);
     if (d.failed) {
       const matched = (d[d.failed] as { id: string; pos: Pos }[]).map((x) => ({ id: x.id, pos: x.pos }));
-      const key = `${d.failed}|${matched.map((m) => m.id).join(',')}|${d.design?.kind ?? ''}`;
+      // Paths that look the same to the failing stage (same values of the facts its entries
+      // read) are one problem; the first is shown as the example and the rest counted.
+      const seenBy = [...stageFacts[d.failed]].map((f) => `${f}=${String(facts.get(f) ?? '')}`).join(',');
+      const key = `${d.failed}|${matched.map((m) => m.id).join(',')}|${seenBy}`;
       const f = failures.get(key);
       if (f) f.count++;
       else failures.set(key, { stage: d.failed, matched, example: { ...answers }, count: 1 });

@@ -10,8 +10,9 @@
  * clear excess over that share is flagged.
  */
 import type { ProcedureId, SampleDiagnostics } from '../stats/types.js';
-import { fmt, fmtP } from './style.js';
+import { fmt } from './style.js';
 import type { DiagnosticFlag } from './analysis-types.js';
+import { pIs } from './analysis-conclusion.js';
 
 const SMALL_N = 30;
 const STRONG_SKEW = 1;
@@ -81,8 +82,8 @@ function normality(d: SampleDiagnostics, condition: string): DiagnosticFlag[] {
       severity: small ? 'contradiction' : 'note',
       condition,
       text: small
-        ? `Shapiro-Wilk W = ${fmt(d.shapiro.w)}, p = ${fmtP(d.shapiro.pValue)} with only ${d.n} values: a departure from normality that so few values cannot average out`
-        : `Shapiro-Wilk W = ${fmt(d.shapiro.w)}, p = ${fmtP(d.shapiro.pValue)}; with ${d.n} values the test detects even small departures, and the mean is closer to normal than the values: look at the plot and the skewness`,
+        ? `Shapiro-Wilk W = ${fmt(d.shapiro.w)}, ${pIs(d.shapiro.pValue)} with only ${d.n} values: a departure from normality that so few values cannot average out`
+        : `Shapiro-Wilk W = ${fmt(d.shapiro.w)}, ${pIs(d.shapiro.pValue)}; with ${d.n} values the test detects even small departures, and the mean is closer to normal than the values: look at the plot and the skewness`,
     });
   }
   if (d.skewness !== null && Math.abs(d.skewness) > STRONG_SKEW) {

@@ -19,6 +19,12 @@ export const QUICK_SCOPE =
   '(it may when the conditions, or their order, were assigned at random) and to which units it extends (those the sample ' +
   "fairly represents) depends on the design, which tandem was not told. Write a plan with 'tandem advise' to have this stated.";
 
+/** "p = 0.0123", or "p < 1e-16" below what a double can resolve. */
+export function pIs(p: number): string {
+  const f = fmtP(p);
+  return f.startsWith('<') ? `p ${f}` : `p = ${f}`;
+}
+
 export function percent(x: number): string {
   return `${Number((x * 100).toPrecision(6))}%`;
 }
@@ -47,7 +53,7 @@ export function estimateWords(r: ResultBlock, w: Words): string {
 /** What one result says about first versus second, in one sentence. */
 export function reading(r: ResultBlock, w: Words): string {
   if (!r.available || r.pValue === null || r.estimate === null) return r.unavailable ? `not computed: ${r.unavailable.meaning}` : 'not computed';
-  const p = `p = ${fmtP(r.pValue)}`;
+  const p = pIs(r.pValue);
   const level = percent(r.alpha);
   if (r.procedure === 'paired-equivalence' || r.procedure === 'welch-equivalence') {
     const m = r.margin ?? Number(r.details.margin);
@@ -64,7 +70,7 @@ export function reading(r: ResultBlock, w: Words): string {
       case 'signed-rank':
         return `the differences (${w.first} minus ${w.second}) tend to be ${higher ? 'positive' : 'negative'}: ${w.first} typically gives ${higher ? 'higher' : 'lower'} values than ${w.second}`;
       case 'rank-sum':
-        return `values under ${w.first} tend to be ${higher ? 'higher' : 'lower'} than under ${w.second} (stochastic superiority, not a statement about medians)`;
+        return `values under ${w.first} tend to be ${higher ? 'higher' : 'lower'} than under ${w.second}, in the sense of stochastic superiority (not a statement about medians)`;
       case 'mcnemar':
       case 'two-proportions':
         return `the event${w.event ? ` ('${w.event}')` : ''} is ${higher ? 'more' : 'less'} frequent under ${w.first} than under ${w.second}`;
@@ -92,10 +98,10 @@ export function agreement(main: ResultBlock, sens: ResultBlock | null, doubts: b
   }
   const same = main.pValue < main.alpha === sens.pValue < sens.alpha && Math.sign(main.estimate - main.nullValue) === Math.sign(sens.estimate - sens.nullValue);
   if (same) {
-    return `The sensitivity analysis (${sens.name}) agrees with the declared procedure (p = ${fmtP(sens.pValue)})` + (doubts ? '; the conclusion does not hinge on the condition in doubt.' : '.');
+    return `The sensitivity analysis (${sens.name}) agrees with the declared procedure (${pIs(sens.pValue)})` + (doubts ? '; the conclusion does not hinge on the condition in doubt.' : '.');
   }
   return (
-    `The sensitivity analysis (${sens.name}) does not agree (p = ${fmtP(sens.pValue)}: ${sens.reading}). ` +
+    `The sensitivity analysis (${sens.name}) does not agree (${pIs(sens.pValue)}: ${sens.reading}). ` +
     'The conclusion depends on the conditions of the procedure used: report both results and treat the declared one with caution.'
   );
 }

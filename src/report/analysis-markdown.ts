@@ -29,6 +29,7 @@ export function analysisMarkdown(a: AnalysisReport): string {
   out.push('## Checks on the data', '');
   if (a.diagnostics.length) out.push(markdownTable(DIAGNOSTIC_HEADER, a.diagnostics.map(diagnosticRow), [1, 2, 3, 4, 6, 8, 9, 10]), '');
   if (a.diagnosticsNote) out.push(a.diagnosticsNote, '');
+  for (const d of a.diagnostics.filter((x) => x.shapiroNote)) out.push(`- ${d.label}: ${d.shapiroNote}`);
   for (const f of a.flags) out.push(`- ${f.severity === 'contradiction' ? '**Condition in doubt:** ' : ''}${f.sample}: ${f.text}`);
   if (a.flags.length) out.push('');
   if (a.flagSummary) out.push(a.flagSummary, '');
@@ -38,8 +39,13 @@ export function analysisMarkdown(a: AnalysisReport): string {
   out.push('## Data handling', '');
   out.push(`- read with the ${a.data.parser === 'fast' ? 'plain scan' : 'quoted-CSV parser'}; missing markers: ${a.data.missingMarkers.map((m) => (m === '' ? 'empty cell' : `\`${m}\``)).join(', ')}`);
   for (const n of a.data.notes) out.push(`- ${n}`);
-  for (const x of a.warnings) out.push(`- **Warning:** ${x}`);
+  for (const x of a.data.warnings) out.push(`- **Warning:** ${x}`);
   out.push('');
+  if (a.planWarnings.length) {
+    out.push('## Warnings from the plan', '');
+    for (const x of a.planWarnings) out.push(`- ${x}`);
+    out.push('');
+  }
 
   out.push('## Conclusion', '', a.conclusion, '');
   if (a.cautions.length) {

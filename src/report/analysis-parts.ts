@@ -4,7 +4,7 @@
  */
 import type { SampleDiagnostics } from '../stats/types.js';
 import { fmt, fmtP } from './style.js';
-import { intervalWords, percent, withUnit, type Words } from './analysis-conclusion.js';
+import { intervalWords, percent, withUnit, type Words, pIs } from './analysis-conclusion.js';
 import type { AnalysisReport, ResultBlock } from './analysis-types.js';
 
 export function wordsOf(a: AnalysisReport): Words {
@@ -26,7 +26,7 @@ export function resultRows(r: ResultBlock, w: Words): [string, string][] {
   const rows: [string, string][] = [
     ['estimate', `${withUnit(r.estimate!, w)}  (${r.estimateName})`],
     ['interval', r.ci ? `${percent(r.confidence)}: ${intervalWords(r.ci, w)}` : 'none'],
-    ['test', `${r.statisticName} = ${fmt(r.statistic)}${r.df !== null ? ` on ${fmt(r.df, 6)} df` : ''}, p = ${fmtP(r.pValue!)} (${SIDES[r.alternative]}${r.nullValue !== 0 ? `, null value ${fmt(r.nullValue)}` : ''})`],
+    ['test', `${r.statisticName} = ${fmt(r.statistic)}${r.df !== null ? ` on ${fmt(r.df, 6)} df` : ''}, ${pIs(r.pValue!)} (${SIDES[r.alternative]}${r.nullValue !== 0 ? `, null value ${fmt(r.nullValue)}` : ''})`],
   ];
   if (r.margin !== undefined) rows.push(['margin', `equivalence range -${fmt(r.margin)} to ${withUnit(r.margin, w)}`]);
   if (r.effectSize) {

@@ -44,6 +44,7 @@ export function analysisText(a: AnalysisReport, style: Style): string {
   section('Checks on the data');
   if (a.diagnostics.length) out.push(textTable([DIAGNOSTIC_HEADER, ...a.diagnostics.map(diagnosticRow)], { indent: '  ', right: [1, 2, 3, 4, 6, 8, 9, 10] }));
   if (a.diagnosticsNote) out.push(wrap(a.diagnosticsNote, 92, '  '));
+  for (const d of a.diagnostics.filter((x) => x.shapiroNote)) out.push(bullet(`${d.label}: ${d.shapiroNote}`));
   for (const f of a.flags) {
     const mark = f.severity === 'contradiction' ? style.warn('!') : '-';
     out.push(bullet(`${f.sample}: ${f.text}`, mark));
@@ -58,7 +59,12 @@ export function analysisText(a: AnalysisReport, style: Style): string {
   section('Data handling');
   out.push(`  read ${a.data.file} with the ${a.data.parser === 'fast' ? 'plain scan' : 'quoted-CSV parser'}; missing markers: ${a.data.missingMarkers.map((m) => (m === '' ? 'empty cell' : m)).join(', ')}`);
   for (const n of a.data.notes) out.push(bullet(n));
-  for (const x of a.warnings) out.push(bullet(style.warn(x), style.warn('!')));
+  for (const x of a.data.warnings) out.push(bullet(style.warn(x), style.warn('!')));
+
+  if (a.planWarnings.length) {
+    section('Warnings from the plan');
+    for (const x of a.planWarnings) out.push(bullet(style.warn(x), style.warn('!')));
+  }
 
   section('Conclusion');
   out.push(wrap(a.conclusion, 92, '  '));

@@ -98,7 +98,10 @@ export interface AnalysisReport {
   agreement: string | null;
   conclusion: string;
   scope: string;
+  /** Every warning: the plan's (design) and the data's (unequal counts, unmatched ids). */
   warnings: string[];
+  /** The plan's warnings alone (the data's are in data.warnings). */
+  planWarnings: string[];
   cautions: string[];
   /** What the plot shows (not part of the JSON). */
   plot: { strips: Strip[]; reference?: { value: number; label: string }; legend: string };

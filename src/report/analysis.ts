@@ -55,7 +55,7 @@ export function buildAnalysis(spec: AnalysisSpec, prepared: PreparedData, data: 
   const flagSummary = summarizeFlags(flags, main, sensitivity);
   const scope = spec.scope?.text ?? QUICK_SCOPE;
   const conclusion = [
-    `Direction: ${difference}.`,
+    `Direction: ${difference.replace(/\.\s*$/, '')}.`,
     main.available ? `${capital(estimateWords(main, words))}.` : `The ${main.name} could not be computed: ${main.unavailable?.message}`,
     main.available ? `${capital(main.reading)}.` : `What this means: ${main.unavailable?.meaning}.`,
     ...(doubts ? [flagSummary!] : []),
@@ -83,6 +83,7 @@ export function buildAnalysis(spec: AnalysisSpec, prepared: PreparedData, data: 
     conclusion,
     scope,
     warnings: [...spec.warnings, ...prepared.warnings],
+    planWarnings: spec.warnings,
     cautions: spec.cautions,
     plot: { strips: diag.strips, reference: diag.reference, legend: diag.legend },
   };

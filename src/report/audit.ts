@@ -120,7 +120,7 @@ function dataSection(r: AuditResult): Section | undefined {
   const rows = labels.map((l, i) => (b ? [l, a[i], b[i]] : [l, a[i]]));
   const header = b ? ['', `as the colleague ran it: ${d.colleague.label}`, `as recommended: ${d.recommended!.label}`] : ['', `as the colleague ran it: ${d.colleague.label}`];
   const notes = [...(d.colleague.result?.notes ?? []), ...(d.recommended?.result?.notes ?? [])];
-  const blocks: Block[] = [{ kind: 'para', text: `Recomputed from ${d.file}. How the rows pair up:` }, { kind: 'list', items: d.pairing }, { kind: 'table', header, rows }];
+  const blocks: Block[] = [{ kind: 'para', text: `Recomputed from ${d.file}. How the data were read:` }, { kind: 'list', items: d.pairing }, { kind: 'table', header, rows }];
   if (notes.length) blocks.push({ kind: 'list', items: [...new Set(notes)] });
   return { title: 'Side by side on the data', blocks };
 }

@@ -18,7 +18,8 @@
  * Example: 20 pairs, sdDiff 1, margin 0.6, true difference 0, alpha 0.05: SE = 0.2236, df = 19,
  * c = 1.7291, power = 0.8055 (test/fixtures/size-power checks it against mpmath and a simulation).
  */
-import { gammaln, normalCdf } from '../stats/distributions.js';
+import { normalCdf } from '../stats/distributions.js';
+import { logScaledChiDensity } from '../stats/noncentral-t.js';
 import { integrate } from './quadrature.js';
 
 export function tostPower(se: number, df: number, delta: number, margin: number, c: number): number {
@@ -26,8 +27,7 @@ export function tostPower(se: number, df: number, delta: number, margin: number,
   const B = (-margin - delta) / se;
   const sMax = margin / (c * se);
   const nu = df;
-  const logConst = Math.log(2) + (nu / 2) * Math.log(nu / 2) - gammaln(nu / 2);
-  const logG = (s: number): number => logConst + (nu - 1) * Math.log(s) - 0.5 * nu * s * s;
+  const logG = (s: number): number => logScaledChiDensity(s, nu);
   const f = (s: number): number => {
     if (s <= 0) return 0;
     const inside = normalCdf(A - c * s) - normalCdf(B + c * s);
@@ -35,7 +35,8 @@ export function tostPower(se: number, df: number, delta: number, margin: number,
   };
   // Where g lives: from its mode out to where it has fallen by e^-60 on each side.
   const mode = nu > 1 ? Math.sqrt((nu - 1) / nu) : 0;
-  const rel = (s: number): number => (s <= 0 ? -Infinity : logG(s) - (mode > 0 ? logG(mode) : logConst));
+  const peakLog = logG(Math.max(mode, 1e-300));
+  const rel = (s: number): number => (s <= 0 ? -Infinity : logG(s) - peakLog);
   const scale = 1 / Math.sqrt(2 * nu);
   let lo = mode;
   if (nu > 1) {

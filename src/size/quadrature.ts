@@ -57,6 +57,6 @@ function refine(f: (x: number) => number, a: number, b: number, whole: number, t
   // Stop at the tolerance, or when the two estimates agree to rounding (a smaller absolute
   // tolerance would only chase rounding noise).
   const both = left + right;
-  if (Math.abs(both - whole) <= Math.max(tol, 1e-15 * Math.abs(both)) || depth >= 40) return both;
+  if (Math.abs(both - whole) <= Math.max(tol, 1e-15 * Math.abs(both)) || depth >= 18) return both;
   return refine(f, a, m, left, tol / 2, depth + 1) + refine(f, m, b, right, tol / 2, depth + 1);
 }

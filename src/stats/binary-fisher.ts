@@ -20,8 +20,9 @@
  * contingency.odds_ratio). 0 or Infinity at the edges of the support. Each root by bisection on
  * log psi; for long supports only a window of +/- 60 standard deviations around x1 is summed.
  *
- * Example: 3/10 events against 9/10 gives P(X <= 3) = 0.01151 (less) and two-sided p = 0.01977;
- * conditional odds ratio 0.0542 (scipy 1.10 fisher_exact and odds_ratio give the same).
+ * Example: 3/10 events against 9/10 gives P(X <= 3) = 0.009883 (less) and two-sided p = 0.01977;
+ * conditional odds ratio 0.0579, 95% interval [0.00095, 0.721] (scipy 1.10's fisher_exact and
+ * contingency.odds_ratio give the same).
  */
 import { logChoose } from './distributions.js';
 import type { Alternative } from './types.js';

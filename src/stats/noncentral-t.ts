@@ -264,8 +264,7 @@ function paritySum(q: number, j0: number, lam: number, y: number, yc: number, b:
  */
 export function smallUpperTail(t: number, df: number, a: number): number {
   const nu = df;
-  const c = Math.log(2) + (nu / 2) * Math.log(nu / 2) - gammaln(nu / 2);
-  const F = (u: number): number => logPhiBar(t * Math.exp(u) + a) + nu * u - 0.5 * nu * Math.exp(2 * u) + c;
+  const F = (u: number): number => logPhiBar(t * Math.exp(u) + a) + logScaledChiDensity(Math.exp(u), nu, u) + u;
   const dF = (u: number): number => {
     const e = Math.exp(u);
     return -t * e * hazard(t * e + a) + nu * (1 - e * e);
@@ -303,6 +302,29 @@ export function smallUpperTail(t: number, df: number, a: number): number {
     }
   }
   return h * sum * Math.exp(fPeak);
+}
+
+/**
+ * log of the density of S = sqrt(V/df), V ~ chi-square(df):
+ *   g(s) = 2 (df/2)^(df/2) / Gamma(df/2) * s^(df-1) * exp(-df s^2 / 2).
+ * Written around s = 1 so that the large terms cancel analytically rather than in floating point:
+ * with Stirling's series lgamma(x) = (x - 1/2) log x - x + log(2 pi)/2 + c(x),
+ *   log g(s) = log 2 + log(df/2)/2 - log(2 pi)/2 - c(df/2) + df [log s - (s^2 - 1)/2] - log s,
+ * and log s - (s^2 - 1)/2 = (log1p(e) - e) - e^2/2 with e = s - 1. `logS` may pass log s when known.
+ */
+export function logScaledChiDensity(s: number, df: number, logS = Math.log(s)): number {
+  if (!(s > 0)) return -Infinity;
+  const x = df / 2;
+  const e = s - 1;
+  const core = Math.abs(e) < 0.5 ? Math.log1p(e) - e - 0.5 * e * e : logS - 0.5 * (s * s - 1);
+  return Math.log(2) + 0.5 * Math.log(x) - LN_SQRT_2PI - stirlingCorrection(x) + df * core - logS;
+}
+
+/** c(x) = lgamma(x) - [(x - 1/2) log x - x + log(2 pi)/2], by its asymptotic series for x >= 10. */
+function stirlingCorrection(x: number): number {
+  if (x < 10) return gammaln(x) - ((x - 0.5) * Math.log(x) - x + LN_SQRT_2PI);
+  const x2 = x * x;
+  return (1 / x) * (1 / 12 - (1 / x2) * (1 / 360 - (1 / x2) * (1 / 1260 - 1 / (1680 * x2))));
 }
 
 /** log of the upper normal tail, accurate for every z (continued fraction beyond z = 5). */

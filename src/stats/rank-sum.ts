@@ -69,12 +69,16 @@ export function rankSum(first: number[], second: number[], o: ProcedureOptions):
   const ranks: IntervalRanks = ciExact
     ? exactIntervalRanks(rankSumCounts(n1, n2), size, o.confidence, o.alternative)
     : normalIntervalRanks(size, Math.sqrt((size * (N + 1)) / 12), o.confidence, o.alternative);
+  // One batch: the middle order statistic(s) and the interval ends share their first rounds.
+  const ends = [ranks.lower, ranks.upper].filter((r): r is number => r !== null);
+  const [middle, ...found] = sel.medianAnd(ends);
+  const at = (r: number | null): number => found[ends.indexOf(r as number)];
+  // `+ 0` folds -0 into 0 for the report.
   const ci: [number, number] = [
-    // `+ 0` folds -0 into 0 for the report.
-    ranks.lower === null ? -Infinity : sel.kth(ranks.lower) / f + 0,
-    ranks.upper === null ? Infinity : sel.kth(ranks.upper) / f + 0,
+    ranks.lower === null ? -Infinity : at(ranks.lower) / f + 0,
+    ranks.upper === null ? Infinity : at(ranks.upper) / f + 0,
   ];
-  const estimate = sel.median() / f + 0;
+  const estimate = middle / f + 0;
   assertRepresentable(estimate, ci, o.alternative);
   const ps = countSuperiority(x, y) / size;
   const psCi = superiorityInterval(ps, n1, n2, o.confidence, o.alternative);
@@ -102,7 +106,7 @@ export function rankSum(first: number[], second: number[], o: ProcedureOptions):
     notes: [
       'the rank-sum test compares whole distributions: it asks whether a value from the first group tends to exceed one from the second (stochastic superiority), not whether the medians differ; the Hodges-Lehmann shift describes a location difference only when both groups have the same shape',
       test.note,
-      intervalNote(ranks, size, ciExact, o),
+      intervalNote(ranks, size, ciExact, o, s.tiedGroups > 0),
       'probability-of-superiority interval: Newcombe (2006) method 5 (score type); it assumes no ties',
       ...(s.nearTies > 0 ? [`${s.nearTies} value(s) differed from a tied value only by floating-point rounding and were treated as equal`] : []),
     ],
@@ -169,9 +173,10 @@ function testPart(s: TwoSampleRankSummary, U: number, n1: number, n2: number, o:
   };
 }
 
-function intervalNote(r: IntervalRanks, size: number, exact: boolean, o: ProcedureOptions): string {
+function intervalNote(r: IntervalRanks, size: number, exact: boolean, o: ProcedureOptions, ties: boolean): string {
   const which = [r.lower, r.upper].filter((x) => x !== null).join(' and ');
   const side = o.alternative === 'greater' ? '; one-sided (upper end +Infinity)' : o.alternative === 'less' ? '; one-sided (lower end -Infinity)' : '';
   const base = `interval: pairwise differences ${which} of ${size} in order, critical value from the ${exact ? 'exact' : 'normal approximation to the'} U distribution; achieved confidence ${pct(r.achieved)}${side}`;
-  return r.short ? `${base}; groups too small to reach ${pct(o.confidence)}: this is the widest interval the data allow` : base;
+  const caveat = exact && ties ? '; with tied values the achieved confidence is approximate (usually a little higher)' : '';
+  return r.short ? `${base}${caveat}; groups too small to reach ${pct(o.confidence)}: this is the widest interval the data allow` : base + caveat;
 }

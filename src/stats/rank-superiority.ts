@@ -14,7 +14,7 @@
  * bisection to full precision.
  *
  * Example (computed with this formula, cross-checked against numpy polynomial roots in
- * test/fixtures/scipy-rank): theta_hat = 0.8, n1 = n2 = 10, 95%: about [0.56, 0.92].
+ * test/fixtures/scipy-rank): theta_hat = 0.8, n1 = n2 = 10, 95%: [0.5418, 0.9255].
  */
 import { normalQuantile } from './distributions.js';
 import type { Alternative } from './types.js';

@@ -68,12 +68,16 @@ export function signedRank(first: number[], second: number[], o: ProcedureOption
   const ranks: IntervalRanks = ciExact
     ? exactIntervalRanks(signedRankCounts(n), size, o.confidence, o.alternative, twoPow(n))
     : normalIntervalRanks(size, Math.sqrt((n * (n + 1) * (2 * n + 1)) / 24), o.confidence, o.alternative);
+  // One batch: the middle order statistic(s) and the interval ends share their first rounds.
+  const ends = [ranks.lower, ranks.upper].filter((r): r is number => r !== null);
+  const [middle, ...found] = sel.medianAnd(ends);
+  const at = (r: number | null): number => found[ends.indexOf(r as number)];
+  // `+ 0` folds -0 into 0 for the report.
   const ci: [number, number] = [
-    // `+ 0` folds -0 into 0 for the report.
-    ranks.lower === null ? -Infinity : sel.kth(ranks.lower) / f + 0,
-    ranks.upper === null ? Infinity : sel.kth(ranks.upper) / f + 0,
+    ranks.lower === null ? -Infinity : at(ranks.lower) / f + 0,
+    ranks.upper === null ? Infinity : at(ranks.upper) / f + 0,
   ];
-  const estimate = sel.median() / f + 0;
+  const estimate = middle / f + 0;
   assertRepresentable(estimate, ci, o.alternative);
   const top = (s.nonZero * (s.nonZero + 1)) / 2;
   return {
@@ -100,7 +104,7 @@ export function signedRank(first: number[], second: number[], o: ProcedureOption
     notes: [
       zeroNote(s, n, o.nullValue),
       test.note,
-      intervalNote(ranks, n, size, ciExact, o),
+      intervalNote(ranks, n, size, ciExact, o, s.tiedGroups > 0 || s.zeros > 0),
       ...(s.nearTies + s.nearZeros > 0
         ? [`${s.nearTies + s.nearZeros} difference(s) differed from a tied value or from zero only by floating-point rounding and were treated as equal`]
         : []),
@@ -173,12 +177,14 @@ function testPart(s: SignedRankSummary, o: ProcedureOptions): TestPart {
 
 function zeroNote(s: SignedRankSummary, n: number, nullValue: number): string {
   if (s.zeros === 0) return `no difference equals the null value ${show(nullValue)}, so no pair is dropped (zero differences would be dropped before ranking: Wilcoxon's method)`;
-  return `${s.zeros} of ${n} differences equal the null value ${show(nullValue)} and are dropped before ranking (Wilcoxon's method), leaving ${s.nonZero}; the Hodges-Lehmann estimate and interval use all ${n}`;
+  const verb = s.zeros === 1 ? 'equals' : 'equal';
+  return `${s.zeros} of ${n} differences ${verb} the null value ${show(nullValue)} and ${s.zeros === 1 ? 'is' : 'are'} dropped before ranking (Wilcoxon's method), leaving ${s.nonZero}; the Hodges-Lehmann estimate and interval use all ${n}`;
 }
 
-function intervalNote(r: IntervalRanks, n: number, size: number, exact: boolean, o: ProcedureOptions): string {
+function intervalNote(r: IntervalRanks, n: number, size: number, exact: boolean, o: ProcedureOptions, ties: boolean): string {
   const which = [r.lower === null ? null : `${r.lower}`, r.upper === null ? null : `${r.upper}`].filter((x) => x !== null).join(' and ');
   const side = o.alternative === 'greater' ? '; one-sided (upper end +Infinity)' : o.alternative === 'less' ? '; one-sided (lower end -Infinity)' : '';
   const base = `interval: Walsh averages ${which} of ${size} in order (all ${n} differences), critical value from the ${exact ? 'exact' : 'normal approximation to the'} W+ distribution; achieved confidence ${pct(r.achieved)}${side}`;
-  return r.short ? `${base}; too few pairs to reach ${pct(o.confidence)}: this is the widest interval the data allow` : base;
+  const caveat = exact && ties ? '; with tied or zero differences the achieved confidence is approximate (usually a little higher)' : '';
+  return r.short ? `${base}${caveat}; too few pairs to reach ${pct(o.confidence)}: this is the widest interval the data allow` : base + caveat;
 }

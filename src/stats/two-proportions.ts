@@ -17,7 +17,8 @@
  *
  * Worked example (Newcombe 1998a, Table II example (b), from memory): 9/10 against 3/10:
  * estimate 0.6, method 10 95% interval [0.1705, 0.8090]; expected counts 6 and 4 (< 5), so
- * Fisher's two-sided p = 0.01977 is primary; odds ratio 18.4 (conditional MLE).
+ * Fisher's two-sided p = 0.01977 is primary; odds ratio 17.27 (conditional MLE), exact interval
+ * [1.39, 1048] (scipy 1.10 agrees).
  */
 import { StatsError } from '../errors.js';
 import { conditionalOddsRatio, fisherPValue } from './binary-fisher.js';
@@ -60,8 +61,8 @@ export function twoProportions(first: number[], second: number[], o: ProcedureOp
         : o.method === 'normal'
           ? 'requested'
           : minExpected < 5
-            ? `the smallest expected count is ${show(minExpected)} (< 5; common practice, no source)`
-            : `every expected count is at least 5 (smallest ${show(minExpected)}; common practice, no source)`;
+            ? `the smallest expected count is ${minExpected.toPrecision(3)}, below 5 (common practice, no source)`
+            : `every expected count is at least 5 (smallest ${minExpected.toPrecision(3)}; common practice, no source)`;
   return {
     procedure: 'two-proportions',
     method: 'difference of two independent proportions',

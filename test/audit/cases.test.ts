@@ -18,6 +18,8 @@ const files = readdirSync(dir).filter((f) => f.endsWith('.yaml')).sort();
 
 interface Expect { codes?: string[]; absent?: string[]; exit?: number; data?: string }
 
+const seen = new Set<string>();
+
 describe('audit cases', () => {
   it('there are at least 15 cases, sound and flawed', () => {
     expect(files.length).toBeGreaterThanOrEqual(15);
@@ -35,6 +37,7 @@ describe('audit cases', () => {
       expect(io.err(), `stderr of ${f}`).toBe('');
       const out = JSON.parse(io.out()) as { findings: { code: string; severity: string; message: string }[] };
       const found = out.findings.map((x) => x.code);
+      found.forEach((c) => seen.add(c));
       if (doc.study?.answers || doc.study?.answersFile || doc.study?.planFile) {
         expect(found, `${f}: its study facts must classify (${out.findings.find((x) => x.code === 'design-unknown')?.message ?? ''})`).not.toContain('design-unknown');
       }
@@ -44,4 +47,7 @@ describe('audit cases', () => {
       expect(code).toBe(out.findings.some((x) => x.severity === 'error') ? 1 : 0);
     });
   }
+  it('together the cases show a wide range of findings', () => {
+    expect(seen.size, [...seen].sort().join(', ')).toBeGreaterThanOrEqual(25);
+  });
 });

@@ -47,3 +47,12 @@ describe('absence of evidence', () => {
     expect(codes(audit(rec('procedure: welch-t\npValue: 0.6\nclaim: equivalent')))).toEqual(expect.arrayContaining(['absence-as-equivalence', 'equivalence-no-margin']));
   });
 });
+
+describe('the level of an equivalence test', () => {
+  it('a 90% interval goes with alpha = 0.05 (1 - 2 alpha), and the messages say so', () => {
+    const r = audit(rec(base + 'ci: {lower: 0.104, upper: 0.511, level: 90%}\nequivalence: {margin: 0.5, pLower: "< 0.001", pUpper: 0.060, decision: equivalent}'));
+    const f = r.findings.find((x) => x.code === 'equivalence-smaller-p')!;
+    expect(f.message).toMatch(/at 0\.05 it does not show equivalence/);
+    expect(f.fix).toMatch(/90% interval/);
+  });
+});

@@ -9,6 +9,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { mcnemar } from '../../src/stats/mcnemar.js';
 import { rankSum } from '../../src/stats/rank-sum.js';
+import { MatrixSelector, shiftMatrix, walshMatrix } from '../../src/stats/rank-select.js';
 import { signedRank } from '../../src/stats/signed-rank.js';
 import { twoProportions } from '../../src/stats/two-proportions.js';
 import type { Alternative, ProcedureOptions, TestResult } from '../../src/stats/types.js';
@@ -141,4 +142,34 @@ describe('binary procedures properties', () => {
       }),
     );
   });
+});
+
+describe('order statistics of the implicit matrices (rank-select.ts) equal those of the listed matrix', () => {
+  // Sizes above the listing threshold (65536 entries) exercise the sampling rounds.
+  function listed(r: Float64Array, c: Float64Array, triangular: boolean): Float64Array {
+    const out: number[] = [];
+    for (let i = 0; i < r.length; i++) for (let j = triangular ? i : 0; j < c.length; j++) out.push(r[i] + c[j]);
+    return Float64Array.from(out).sort();
+  }
+  const cases: Array<[string, number, (i: number) => number]> = [
+    ['continuous', 1500, (i) => Math.sin(i * 12.9898) * 43.7],
+    ['heavy ties', 1200, (i) => ((i * 7) % 9) - 3],
+    ['one value', 700, () => 2.5],
+  ];
+  for (const [name, n, gen] of cases) {
+    it(`Walsh averages and pairwise differences, ${name}`, () => {
+      const d = Float64Array.from({ length: n }, (_, i) => gen(i)).sort();
+      const y = Float64Array.from({ length: Math.floor(n * 0.6) }, (_, i) => gen(i + 5000) * 0.7).sort();
+      for (const m of [walshMatrix(d), shiftMatrix(d, y)]) {
+        const all = listed(m.r, m.c, m.triangular);
+        expect(all.length).toBe(m.size);
+        const ranks = [1, 2, Math.ceil(m.size / 3), Math.floor(m.size / 2), Math.floor(m.size / 2) + 1, m.size - 1, m.size];
+        const sel = new MatrixSelector(m);
+        expect(sel.kths(ranks)).toEqual(ranks.map((k) => all[k - 1]));
+        for (const k of ranks) expect(sel.kth(k)).toBe(all[k - 1]);
+        const mid = m.size % 2 ? all[(m.size - 1) / 2] : all[m.size / 2 - 1] * 0.5 + all[m.size / 2] * 0.5;
+        expect(sel.median()).toBe(mid);
+      }
+    });
+  }
 });

@@ -202,19 +202,18 @@ async function offerToSave(s: Session): Promise<void> {
   const { offerSave } = await import('../../interview/save.js');
   const a = s.rec.answers;
   const stem = `${slugify(String(a.first_label ?? ''), 'first')}-vs-${slugify(String(a.second_label ?? ''), 'second')}`.replace(/_/g, '-');
-  // TODO(issue 2): offerSave always offers both files; for a design that has no plan it could
-  // offer the answers only (until then, a plan chosen there is declined with a message).
-  const choice = await offerSave(s.io, { answersPath: `${stem}.answers.yaml`, planPath: `${stem}.plan.yaml` }, { force: s.force });
   const other = s.rec.design.family === 'other' || s.rec.procedure.id === null;
+  // A design outside a two-condition comparison has no plan: offer the answers only.
+  const choice = await offerSave(
+    s.io,
+    { answersPath: `${stem}.answers.yaml`, planPath: `${stem}.plan.yaml` },
+    { force: s.force, offer: { answers: true, plan: !other } },
+  );
   if (choice.answersPath) {
     await writeAnswers(s, { shown: choice.answersPath, abs: resolve(s.io.cwd, choice.answersPath) });
     s.io.stderr.write(`tandem advise: answers written to ${choice.answersPath}\n`);
   }
-  if (choice.planPath) {
-    if (other) {
-      s.io.stderr.write(`tandem advise: no plan written: ${s.rec.design.label} is outside a two-condition comparison\n`);
-      return;
-    }
+  if (choice.planPath && !other) {
     await writePlan(s, { shown: choice.planPath, abs: resolve(s.io.cwd, choice.planPath) });
     s.io.stderr.write(`tandem advise: plan written to ${choice.planPath}; next: tandem plan check ${choice.planPath}\n`);
   }

@@ -79,6 +79,7 @@ function check(dir: string, io: IO): number {
     ['answer paths enumerated', String(report.paths)],
   ];
   io.stdout.write(`${style.bold('Rule base')} ${dir}\n${textTable(rows, { right: [1], indent: '  ' })}\n`);
+  io.stdout.write(style.dim('  (choice answers branch; numbers take values on both sides of every threshold; answers that change only\n   wording, warnings or cautions are varied across paths rather than multiplied)\n'));
   const count = (o: Record<string, number>): string => textTable(Object.entries(o).sort((a, b) => b[1] - a[1]).map(([k, v]) => [k, String(v)]), { right: [1], indent: '  ' });
   io.stdout.write(`${style.bold('Paths by design')}\n${count(report.outcomes)}\n`);
   io.stdout.write(`${style.bold('Paths by procedure')}\n${count(report.procedureCounts)}\n`);
