@@ -89,23 +89,28 @@ export function makeContext(record: AuditRecord, rec: Recommendation | null, rec
 }
 
 /** Collects findings and number checks; severity always comes from the code catalogue. */
-export class Collector {
-  readonly findings: Finding[] = [];
-  readonly checks: NumberCheck[] = [];
+export interface Collector {
+  readonly findings: Finding[];
+  readonly checks: NumberCheck[];
+  add(code: FindingCode, message: string, fix: string, values?: Finding['values']): void;
+  has(code: FindingCode): boolean;
+  check(c: NumberCheck): void;
+}
 
-  add(code: FindingCode, message: string, fix: string, values?: Finding['values']): void {
-    const f: Finding = { code, severity: FINDING_CODES[code].severity, message, fix };
-    if (values) f.values = values;
-    this.findings.push(f);
-  }
-
-  has(code: FindingCode): boolean {
-    return this.findings.some((f) => f.code === code);
-  }
-
-  check(c: NumberCheck): void {
-    this.checks.push(c);
-  }
+export function makeCollector(): Collector {
+  const findings: Finding[] = [];
+  const checks: NumberCheck[] = [];
+  return {
+    findings,
+    checks,
+    add(code, message, fix, values) {
+      const f: Finding = { code, severity: FINDING_CODES[code].severity, message, fix };
+      if (values) f.values = values;
+      findings.push(f);
+    },
+    has: (code) => findings.some((f) => f.code === code),
+    check: (c) => void checks.push(c),
+  };
 }
 
 /** The number as written, for messages: `"0.0430"`. */

@@ -17,7 +17,7 @@ import { checkInterval } from './check-interval.js';
 import { checkPretest } from './check-pretest.js';
 import { checkPValue } from './check-pvalue.js';
 import { FINDING_CODES } from './codes.js';
-import { Collector, makeContext, type AuditContext } from './context.js';
+import { makeCollector, makeContext, type AuditContext, type Collector } from './context.js';
 import type { AuditRecord, AuditResult, DataComparison, Finding } from './types.js';
 
 export type { AuditRecord, AuditResult, Finding } from './types.js';
@@ -39,7 +39,7 @@ export interface AuditOptions {
 export function auditRecord(record: AuditRecord, recommendation: Recommendation | null, opts: AuditOptions = {}): AuditResult {
   const { recommendationNote } = opts;
   const ctx = makeContext(record, recommendation, recommendationNote);
-  const out = new Collector();
+  const out = makeCollector();
   checkDesign(ctx, out);
   checkPretest(ctx, out);
   checkCounts(ctx, out);

@@ -41,7 +41,7 @@ export function pairingComparison(spec: SizeSpec): ComparisonRow[] | null {
     const sdDiff = pairSigma * Math.sqrt(2 * (1 - rho));
     const paired: SizeSpec = { ...spec, design: 'paired', sdDiff, sd: pairSigma, sd2: undefined, rho, ratio: 1 };
     const pairs = sampleSize(paired).layout.n;
-    return { rho, sdDiff, pairs, independentTotal: groups.total, independentN: groups.n, independentN2: groups.n2 ?? groups.n };
+    return { rho, sigma: pairSigma, sdDiff, pairs, independentTotal: groups.total, independentN: groups.n, independentN2: groups.n2 ?? groups.n };
   });
 }
 

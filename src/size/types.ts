@@ -68,6 +68,8 @@ export interface SizeAnswer {
 
 export interface ComparisonRow {
   rho: number;
+  /** SD of single measurements the row assumes (for Welch spreads, their root mean square). */
+  sigma: number;
   sdDiff: number;
   pairs: number;
   /** Units in two independent groups with the same spread (n1 + n2). */

@@ -11,21 +11,12 @@ import { EXIT } from '../exit-codes.js';
 import { boolOpt, choiceOpt, numberOpt, parseOptions, stringOpt, type OptionSpec, type Parsed } from '../options.js';
 import { InputError, OutputError } from '../../errors.js';
 import { DEFAULT_MISSING } from '../../data/cells.js';
-import { DELIMITER_NAMES, parseDelimiterOption, type DelimiterChoice } from '../../data/delimiter.js';
-import { checkLayout, columnRequests, prepare } from '../../data/prepare.js';
+import { parseDelimiterOption, type DelimiterChoice } from '../../data/delimiter.js';
 import { quickLayout } from '../../data/quick-layout.js';
-import { readTable } from '../../data/read.js';
 import type { LayoutSpec, PreparedData } from '../../data/types.js';
-import { writeFileAtomic } from '../../fs/atomic.js';
 import { PROCEDURES, procedureName, sensitivityAllowed } from '../../plan/procedures.js';
-import { buildAnalysis } from '../../report/analysis.js';
-import { analysisJson } from '../../report/analysis-json.js';
-import { analysisMarkdown } from '../../report/analysis-markdown.js';
-import { analysisText } from '../../report/analysis-text.js';
 import type { AnalysisSpec, DataInfo } from '../../report/analysis-types.js';
-import { makeStyle } from '../../report/style.js';
-import { procedureDesign } from '../../stats/index.js';
-import { PROCEDURE_IDS, type ProcedureId } from '../../stats/types.js';
+import { PROCEDURE_IDS, type ProcedureId, type ProcedureInput } from '../../stats/types.js';
 
 const COLUMN_OPTIONS = ['first', 'second', 'id', 'group', 'value', 'condition', 'first-level', 'second-level', 'sequence', 'period1', 'period2', 'first-then-second', 'second-then-first'];
 const QUICK_ONLY = ['procedure', 'alternative', 'confidence', 'null', 'margin', 'sensitivity', 'event', 'unit', 'pair-by-row-order', ...COLUMN_OPTIONS];
@@ -108,9 +99,18 @@ export default async function analyze(argv: string[], io: IO): Promise<number> {
   const delimiter: DelimiterChoice = delimiterArg !== undefined ? parseDelimiterOption(delimiterArg) : job.delimiter ?? 'auto';
 
   const spec = job.spec;
-  const design = procedureDesign(spec.procedure);
-  checkLayout(design, job.layout.layout, spec.procedure);
-  const { prepared, info } = load(resolve(io.cwd, dataArg), dataArg, job.layout, { binary: spec.outcome.binary, event: spec.outcome.event }, delimiter, missing);
+  // The reading, statistics and report modules load only now: --help and option errors stay fast.
+  const [{ checkLayout }, { buildAnalysis }, { analysisJson }, { analysisMarkdown }, { analysisText }, { makeStyle }, { writeFileAtomic }] = await Promise.all([
+    import('../../data/prepare.js'),
+    import('../../report/analysis.js'),
+    import('../../report/analysis-json.js'),
+    import('../../report/analysis-markdown.js'),
+    import('../../report/analysis-text.js'),
+    import('../../report/style.js'),
+    import('../../fs/atomic.js'),
+  ]);
+  checkLayout(designOf(spec.procedure), job.layout.layout, spec.procedure);
+  const { prepared, info } = await load(resolve(io.cwd, dataArg), dataArg, job.layout, { binary: spec.outcome.binary, event: spec.outcome.event }, delimiter, missing);
   const report = buildAnalysis(spec, prepared, info);
 
   io.stdout.write(boolOpt(p, 'json') ? analysisJson(report) : analysisText(report, makeStyle(io.color)));
@@ -126,11 +126,17 @@ export default async function analyze(argv: string[], io: IO): Promise<number> {
   return EXIT.ok;
 }
 
+/** The kind of input a procedure reads (the same as the stats registry's, without loading it). */
+function designOf(id: ProcedureId): ProcedureInput['kind'] {
+  return id === 'crossover-t' ? 'crossover' : PROCEDURES[id].family;
+}
+
 /**
  * Reads and prepares the data. The table (every requested column, codes and line numbers) is
  * dropped on return, so only the prepared arrays stay in memory during the analysis.
  */
-function load(path: string, file: string, layout: LayoutSpec, outcome: { binary: boolean; event?: string }, delimiter: DelimiterChoice, missing: string[]): { prepared: PreparedData; info: DataInfo } {
+async function load(path: string, file: string, layout: LayoutSpec, outcome: { binary: boolean; event?: string }, delimiter: DelimiterChoice, missing: string[]): Promise<{ prepared: PreparedData; info: DataInfo }> {
+  const [{ readTable }, { columnRequests, prepare }, { DELIMITER_NAMES }] = await Promise.all([import('../../data/read.js'), import('../../data/prepare.js'), import('../../data/delimiter.js')]);
   const table = readTable(path, columnRequests(layout, outcome), { delimiter, missing }, file);
   const prepared = prepare(table, layout, outcome);
   const info: DataInfo = {
@@ -208,7 +214,7 @@ function fromQuick(p: Parsed, dataArg: string): Job {
   const event = stringOpt(p, 'event');
   if (event !== undefined && !facts.binary) throw new InputError(`--event is for binary outcomes (mcnemar, two-proportions), not ${id}`);
   const s = (k: string): string | undefined => stringOpt(p, k);
-  const layout = quickLayout(procedureDesign(id), id, {
+  const layout = quickLayout(designOf(id), id, {
     first: s('first'), second: s('second'), id: s('id'), group: s('group'), value: s('value'), condition: s('condition'),
     firstLevel: s('first-level'), secondLevel: s('second-level'), sequence: s('sequence'), period1: s('period1'), period2: s('period2'),
     firstThenSecond: s('first-then-second'), secondThenFirst: s('second-then-first'), pairByRowOrder: boolOpt(p, 'pair-by-row-order') || undefined,
