@@ -74,7 +74,9 @@ export function prepareCrossover(table: Table, m: Crossover, outcome: OutcomeSpe
       secondThenFirst: { period1: toArray(buf[2], n[1]), period2: toArray(buf[3], n[1]) },
     },
     layout: 'crossover',
-    sides: { first: s1, second: s2 },
+    // The data name sequences, not conditions: say which condition each side is.
+    sides: { first: `the condition given first in sequence '${s1}'`, second: `the condition given first in sequence '${s2}'` },
+    sequences: { firstThenSecond: s1, secondThenFirst: s2 },
     counts: { rows: table.rows, pairs: n[0] + n[1], first: n[0], second: n[1], dropped },
     notes,
     warnings: [],

@@ -75,6 +75,8 @@ export interface PreparedData {
   layout: string;
   /** Names of the two sides as the data call them (columns or levels). */
   sides: { first: string; second: string };
+  /** Crossover only: the sequence values (first condition in period 1, and the other). */
+  sequences?: { firstThenSecond: string; secondThenFirst: string };
   counts: {
     /** Data rows read. */
     rows: number;

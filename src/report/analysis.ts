@@ -48,7 +48,7 @@ export function buildAnalysis(spec: AnalysisSpec, prepared: PreparedData, data: 
     sensitivity = { ...runBlock(spec.sensitivity.id, input, spec, prepared.counts.dropped, words), why: spec.sensitivity.why };
   }
 
-  const diag = diagnose(spec, prepared.input, labels, main);
+  const diag = diagnose(spec, prepared.input, labels, main, prepared.sequences);
   const flags = diagnosticFlags(spec.procedure, diag.diagnostics, paired);
   const doubts = flags.some((f) => f.severity === 'contradiction');
   const agree = agreement(main, sensitivity, doubts);
@@ -176,7 +176,7 @@ interface Diagnosed {
   legend: string;
 }
 
-function diagnose(spec: AnalysisSpec, input: ProcedureInput, labels: { first: string; second: string }, main: ResultBlock): Diagnosed {
+function diagnose(spec: AnalysisSpec, input: ProcedureInput, labels: { first: string; second: string }, main: ResultBlock, sequences?: PreparedData['sequences']): Diagnosed {
   const conf = percent(main.confidence);
   if (spec.outcome.binary) {
     return { diagnostics: [], note: 'shape diagnostics do not apply to a 0/1 outcome; the counts are in the result', strips: [], legend: '' };
@@ -204,8 +204,8 @@ function diagnose(spec: AnalysisSpec, input: ProcedureInput, labels: { first: st
           [labels.second, input.second],
         ]
       : [
-          [`half period differences, sequence ${labels.first}`, halfDiffs(input.firstThenSecond)],
-          [`half period differences, sequence ${labels.second}`, halfDiffs(input.secondThenFirst)],
+          [`half period differences, sequence ${sequences?.firstThenSecond ?? 1}`, halfDiffs(input.firstThenSecond)],
+          [`half period differences, sequence ${sequences?.secondThenFirst ?? 2}`, halfDiffs(input.secondThenFirst)],
         ];
   const { list, note } = describeAll(samples);
   const strips = samples.map(([label, values]): Strip => {

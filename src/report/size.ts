@@ -161,7 +161,7 @@ export function curvePlot(curve: CurvePoint[], spec: SizeSpec, answerN: number, 
       else if (r === target) row += style.dim('-');
       else row += ' ';
     }
-    lines.push(`${label} |${row}`);
+    lines.push(`${label} |${row}`.trimEnd());
   }
   lines.push(`      +${'-'.repeat(curve.length)}`);
   const idx = curve.findIndex((p) => p.n === answerN);
@@ -185,7 +185,7 @@ export function curvePlot(curve: CurvePoint[], spec: SizeSpec, answerN: number, 
  * the exact power achieved at that size; `recruit` adds attrition; `inputs` holds what was given
  * and `assumed` what the calculation used (spreads after conversion, defaults).
  */
-export function sizeJson(plan: SizePlan, given: Record<string, unknown>, ctx: SizeContext): Record<string, unknown> {
+export function sizeJson(plan: SizePlan, given: object, ctx: SizeContext): Record<string, unknown> {
   const { spec, answer } = plan;
   const l = answer.layout;
   return {

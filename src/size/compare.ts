@@ -45,18 +45,19 @@ export function pairingComparison(spec: SizeSpec): ComparisonRow[] | null {
   });
 }
 
-/** Power at about `points` sizes from the minimum to past the answer (at least 1.6 times it). */
+/**
+ * Power at about `points` evenly spaced sizes from the minimum to past the answer (at least 1.6
+ * times it); the grid is laid so that the answer itself is one of its points.
+ */
 export function powerCurve(spec: SizeSpec, answerN: number, points = 40): CurvePoint[] {
   const lo = minimumN(spec);
   const hi = Math.max(lo + 4, Math.ceil(answerN * 1.6));
   const step = Math.max(1, Math.ceil((hi - lo) / (points - 1)));
-  const out: CurvePoint[] = [];
-  for (let n = lo; n <= hi; n += step) {
-    out.push({ n, total: layoutFor(spec, n).total, power: planPower(spec, n) });
-  }
-  if (!out.some((p) => p.n === answerN) && answerN >= lo && answerN <= hi) {
-    out.push({ n: answerN, total: layoutFor(spec, answerN).total, power: planPower(spec, answerN) });
-    out.sort((a, b) => a.n - b.n);
-  }
-  return out;
+  const anchor = Math.min(Math.max(answerN, lo), hi);
+  const sizes = new Set<number>([lo]);
+  for (let n = anchor; n >= lo; n -= step) sizes.add(n);
+  for (let n = anchor + step; n <= hi; n += step) sizes.add(n);
+  return [...sizes]
+    .sort((a, b) => a - b)
+    .map((n) => ({ n, total: layoutFor(spec, n).total, power: planPower(spec, n) }));
 }

@@ -49,6 +49,12 @@ export function checkOptions(partial: Partial<ProcedureOptions>): ProcedureOptio
   if (o.margin !== undefined && !(o.margin > 0 && Number.isFinite(o.margin))) {
     throw new StatsError('invalid-option', `equivalence margin must be a positive number; got ${o.margin}`);
   }
+  if (o.method !== undefined && !['auto', 'exact', 'normal'].includes(o.method)) {
+    throw new StatsError('invalid-option', `method must be auto, exact or normal; got '${String(o.method)}'`);
+  }
+  if (o.correction !== undefined && typeof o.correction !== 'boolean') {
+    throw new StatsError('invalid-option', `correction must be true or false; got '${String(o.correction)}'`);
+  }
   return o;
 }
 
