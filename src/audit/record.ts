@@ -32,8 +32,7 @@ const COUNT_FIELDS = ['n', 'n1', 'n2'] as const;
 
 export function parseRecord(loaded: LoadedYaml, schema: object): ParsedRecord {
   const empty: AuditRecord = { file: loaded.file, title: '', reported: {} };
-  // An if/then schema adds a summary error ('must match "then" schema') beside the specific one.
-  const problems = validateLoaded(loaded, schema).filter((p) => !/must match "(then|else)" schema/.test(p.message));
+  const problems = validateLoaded(loaded, schema);
   if (problems.length) return { record: empty, refs: {}, problems };
   const v = loaded.value as Record<string, any>;
   if (v.format !== AUDIT_FORMAT) {

@@ -9,6 +9,7 @@ import { fastNumber, fastNumberBytes, hasNumericMarker, readNumberCell } from '.
 import type { Delimiter } from './delimiter.js';
 import { isAsciiSpace, LevelPool } from './intern.js';
 import { numberArray, truncate } from './values.js';
+import { resolveColumns } from './resolve-columns.js';
 import type { Column, ColumnRequest, Table } from './types.js';
 
 /** More problems than this are counted, not listed. */
@@ -252,35 +253,6 @@ export class ColumnCollector {
       }
     }
   }
-}
-
-/** Finds each requested column in the header; unknown or doubled names list what exists. */
-export function resolveColumns(file: string, header: string[], requests: ColumnRequest[]): { request: ColumnRequest; index: number }[] {
-  const problems: Problem[] = [];
-  const out: { request: ColumnRequest; index: number }[] = [];
-  const existing = header.map((h) => `'${h}'`).join(', ');
-  for (const request of requests) {
-    const hits = header.flatMap((h, i) => (h === request.name ? [i] : []));
-    if (hits.length === 1) out.push({ request, index: hits[0] });
-    else if (hits.length > 1) {
-      problems.push({
-        code: 'data', file, line: 1, col: hits[1] + 1,
-        message: `the ${request.role} column '${request.name}' appears ${hits.length} times in the header (fields ${hits.map((i) => i + 1).join(', ')})`,
-        hint: 'rename the columns so that each name is used once',
-      });
-    } else {
-      const near = header.find((h) => h.toLowerCase() === request.name.toLowerCase());
-      problems.push({
-        code: 'data', file, line: 1,
-        message: `no column named '${request.name}' (wanted as the ${request.role} column)`,
-        hint: near !== undefined ? `did you mean '${near}'? names are case-sensitive; the columns are ${existing}` : `the columns are ${existing}`,
-      });
-    }
-  }
-  if (problems.length > 0) {
-    throw new InputError(`${file}: ${problems.length === 1 ? 'a column was' : 'columns were'} not found as named`, problems);
-  }
-  return out;
 }
 
 function categoryColumn(name: string, index: number, codes: Int32Array, pool: LevelPool, missing: number): Column {

@@ -46,7 +46,7 @@ export function checkPlanText(text: string, file: string): PlanCheck {
   const version = formatProblem((v as Record<string, unknown>).format, loaded);
   if (version) return { plan: null, problems: [version] };
 
-  const schemaProblems = validateLoaded(loaded, planSchema()).filter((p) => !/must match "(then|else)" schema$/.test(p.message));
+  const schemaProblems = validateLoaded(loaded, planSchema());
   if (schemaProblems.length) return { plan: null, problems: sortProblems(schemaProblems) };
 
   const plan = v as Plan;

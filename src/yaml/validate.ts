@@ -20,7 +20,10 @@ export function validateLoaded(loaded: LoadedYaml, schema: object): Problem[] {
   if (loaded.problems.length) return loaded.problems;
   const validate = compileSchema(schema);
   if (validate(loaded.value)) return [];
-  return dedupe((validate.errors ?? []).map((e) => toProblem(e, loaded)));
+  // An if/then schema reports a summary error ('must match "then" schema') beside the specific
+  // one that says what is wrong; only the specific one helps the reader.
+  const errors = (validate.errors ?? []).filter((e) => e.keyword !== 'if');
+  return dedupe(errors.map((e) => toProblem(e, loaded)));
 }
 
 function toProblem(e: ErrorObject, loaded: LoadedYaml): Problem {

@@ -110,6 +110,8 @@ describe('tandem analyze, quick mode', () => {
     expect(doc!.procedure).toBe('crossover-t');
     expect(doc!.diagnostics).toHaveLength(2);
     expect(doc!.sensitivity).toMatchObject({ procedure: 'rank-sum', available: true });
+    expect(doc!.diagnostics[0].label).toMatch(/half period differences, sequence new-first/);
+    expect(doc!.difference).toMatch(/the condition given first in sequence 'new-first' minus/);
     // The rank-based check reads the half period differences, so its shift has the same sign.
     expect(Math.sign(doc!.sensitivity.estimate)).toBe(Math.sign(doc!.estimate));
   });
@@ -120,6 +122,25 @@ describe('tandem analyze, quick mode', () => {
     expect(doc!.outcome.binary).toBe(true);
     expect(doc!.diagnostics).toEqual([]);
     expect(doc!.diagnosticsNote).toMatch(/0\/1 outcome/);
+  });
+
+  it('reads a quoted, semicolon-separated file with a BOM through the full parser', async () => {
+    const { code, doc } = await json(['--data', 'orchard-quoted.csv', '--procedure', 'welch-t', '--group', 'variety', '--value', 'yield, kg', '--first-level', 'Gala', '--second-level', 'Cox']);
+    expect(code).toBe(0);
+    expect(doc!.data).toMatchObject({ parser: 'full', delimiter: 'semicolon', rows: 7 });
+    expect(doc!.n).toEqual({ first: 3, second: 3, dropped: 1 });
+    expect(doc!.difference).toMatch(/Gala minus Cox/);
+  });
+
+  it('passes --missing and --delimiter to the reader', async () => {
+    const path = csv('dots.csv', 'a\tb\n1.5\t1.1\n.\t2.0\n2.5\t2.2\n3.0\t2.1\n');
+    const r = await json(['--data', path, '--procedure', 'paired-t', '--first', 'a', '--second', 'b', '--pair-by-row-order', '--missing', '.', '--delimiter', 'tab']);
+    expect(r.code).toBe(0);
+    expect(r.doc!.n).toEqual({ pairs: 3, dropped: 1 });
+    expect(r.doc!.data.missingMarkers).toEqual(['', '.']);
+    const wrong = await analyze(['--data', path, '--procedure', 'paired-t', '--first', 'a', '--second', 'b', '--pair-by-row-order']);
+    expect(wrong.code).toBe(2);
+    expect(wrong.err).toMatch(/'\.' is not a number/);
   });
 
   it('prints the text report with our own sections, a plot, and no colour when colour is off', async () => {
