@@ -56,7 +56,7 @@ export function countPhrase(spec: SizeSpec, n: number, n2: number | undefined, c
 function spreadPhrase(spec: SizeSpec, ctx: SizeContext): string {
   if (spec.design === 'paired') {
     if (spec.standardized) {
-      return spec.rho === undefined ? 'in SDs of the differences' : `in SDs of single measurements, correlation ${fmt(spec.rho, 3)} within pairs`;
+      return spec.rho === undefined ? 'in SDs of the differences' : `in SDs of single measurements; correlation ${fmt(spec.rho, 3)} within pairs`;
     }
     if (spec.rho !== undefined && spec.sd !== undefined) {
       return `SD ${amount(spec.sd, spec, ctx)}, correlation ${fmt(spec.rho, 3)} within pairs, so SD of differences ${amount(spec.sdDiff, spec, ctx)}`;
@@ -69,10 +69,18 @@ function spreadPhrase(spec: SizeSpec, ctx: SizeContext): string {
   return `SD ${amount(sd, spec, ctx)} in each group`;
 }
 
+/** "a mean difference (A minus B) of 2.5 mm (SD of differences 4 mm)" or its standardized form. */
 function effectPhrase(spec: SizeSpec, diff: number, ctx: SizeContext): string {
   const what = spec.design === 'paired' ? 'a mean difference' : 'a difference in means';
   const labels = ctx.first && ctx.second ? ` (${ctx.first} minus ${ctx.second})` : '';
   const of = ctx.outcome ? ` in ${ctx.outcome}` : '';
+  if (spec.standardized) {
+    if (spec.design === 'paired' && spec.rho === undefined) return `${what}${of}${labels} of ${fmt(diff, 3)} SD of the differences (d_z = ${fmt(diff, 3)})`;
+    if (spec.design === 'paired') {
+      return `${what}${of}${labels} of ${fmt(diff, 3)} SD of single measurements (d = ${fmt(diff, 3)}; correlation ${fmt(spec.rho as number, 3)} within pairs, so d_z = ${fmt(diff / spec.sdDiff, 3)})`;
+    }
+    return `${what}${of}${labels} of ${fmt(diff, 3)} SD (d = ${fmt(diff, 3)})`;
+  }
   return `${what}${of}${labels} of ${amount(diff, spec, ctx)} (${spreadPhrase(spec, ctx)})`;
 }
 
@@ -119,7 +127,7 @@ function detailLine(plan: SizePlan): string {
   const l = answer.layout;
   const parts = [`Power at this size ${pct(answer.power)}`, `${fmt(l.df, 4)} degrees of freedom`];
   if (answer.question === 'sample-size' && !answer.atMinimum) {
-    const below = spec.design === 'paired' ? `${l.n - 1} pairs` : `${l.n - 1} in the first group`;
+    const below = spec.design === 'paired' ? `${l.n - 1} pairs` : l.n2 === l.n ? `${l.n - 1} per group` : `${l.n - 1} in the first group`;
     parts[0] += ` (${below} would fall short)`;
   }
   return `${parts.join('; ')}. Method: ${answer.method}.`;
@@ -128,18 +136,18 @@ function detailLine(plan: SizePlan): string {
 function comparisonTable(rows: ComparisonRow[], spec: SizeSpec, ctx: SizeContext, style: Style): string {
   const g = rows[0];
   const groups = `${g.independentTotal} (${g.independentN} + ${g.independentN2})`;
-  const head = [['correlation', 'SD of differences', 'pairs needed', 'measurements', 'two groups: units', 'pairs use']];
+  const head = [['correlation', 'SD of differences', 'pairs needed', 'measurements', 'two groups', 'measurements saved']];
   const body = rows.map((r) => {
     const mine = spec.design === 'paired' && spec.rho !== undefined && Math.abs(spec.rho - r.rho) < 1e-9;
-    const share = `${fmt((100 * r.pairs) / r.independentTotal, 3)}% of the units`;
-    return [fmt(r.rho, 2) + (mine ? ' *' : ''), amount(r.sdDiff, spec, ctx), String(r.pairs), String(2 * r.pairs), groups, share];
+    return [fmt(r.rho, 2) + (mine ? ' *' : ''), amount(r.sdDiff, spec, ctx), String(r.pairs), String(2 * r.pairs), groups, String(r.independentTotal - 2 * r.pairs)];
   });
-  const title = style.bold(`What pairing buys (same question; SD of single measurements ${amount(g.sigma, spec, ctx)})`);
+  const sigma = spec.standardized ? 'effects in SDs of single measurements' : `SD of single measurements ${amount(g.sigma, spec, ctx)}`;
+  const title = style.bold(`What pairing buys (same question; ${sigma})`);
   const foot = style.dim(
-    'Pairs are measured twice, units in two groups once. At correlation 0 pairing gains nothing and costs degrees of freedom; the gain grows with the correlation within pairs.' +
+    'A pair gives two measurements, a unit in two groups one. At correlation 0 pairing gains nothing and costs degrees of freedom (a negative saving); the gain grows with the correlation within pairs.' +
       (spec.design === 'paired' && spec.rho !== undefined && compareHas(spec.rho) ? ' * your planned correlation.' : ''),
   );
-  return [title, textTable([...head, ...body], { right: [0, 2, 3], indent: '  ' }), foot].join('\n');
+  return [title, textTable([...head, ...body], { right: [0, 2, 3, 5], indent: '  ' }), foot].join('\n');
 }
 
 const compareHas = (rho: number): boolean => COMPARISON_RHOS.some((r) => Math.abs(r - rho) < 1e-9);

@@ -12,6 +12,7 @@ import { rankSum } from './rank-sum.js';
 import { mcnemar } from './mcnemar.js';
 import { twoProportions } from './two-proportions.js';
 import { crossoverT } from './crossover-t.js';
+import { crossoverRankSum } from './crossover-rank-sum.js';
 import { pairedEquivalence, welchEquivalence } from './equivalence.js';
 
 type Paired = (first: number[], second: number[], o: ProcedureOptions) => TestResult;
@@ -72,7 +73,11 @@ export function runProcedure(id: ProcedureId, input: ProcedureInput, options: Pa
     if (input.kind !== 'crossover') throw new StatsError('invalid-option', `crossover-t needs data by sequence group and period; got ${input.kind} data`);
     return crossoverT(input, o);
   }
-  if (input.kind === 'crossover') throw new StatsError('invalid-option', `${id} does not take crossover data`);
+  if (input.kind === 'crossover') {
+    // The crossover's declared sensitivity analysis: rank-sum on the half period differences.
+    if (id === 'rank-sum') return crossoverRankSum(input, o);
+    throw new StatsError('invalid-option', `${id} does not take crossover data (crossover-t and rank-sum do)`);
+  }
   const fn = (input.kind === 'paired' ? PAIRED : INDEPENDENT)[id];
   if (!fn) {
     throw new StatsError('invalid-option', `${id} is a ${procedureDesign(id)} procedure and cannot run on ${input.kind} data`);
