@@ -2,9 +2,11 @@
  * Generates the benchmark's input: an invented data-centre cooling trial in which each of
  * 1,000,000 server racks had its inlet air temperature (degrees C) logged with the aisle baffle
  * open and with it closed. Columns: rack, baffle_open_c, baffle_closed_c. About 23 MB.
- * Deterministic (a seeded generator), so every run reads the same bytes.
+ * Deterministic (a seeded generator), so every run reads the same bytes. The racks are listed in
+ * order (rk0000001, rk0000002, ...) as an export usually lists them; with `shuffle` the ids come
+ * in a scrambled order (the same values), which makes tandem check them with its hash table.
  *
- *   node bench/gen-paired.mjs [rows] [out.csv]
+ *   node bench/gen-paired.mjs [rows] [out.csv] [--shuffle]
  */
 import { createWriteStream, mkdirSync } from 'node:fs';
 import { dirname } from 'node:path';
@@ -22,7 +24,7 @@ function mulberry32(seed) {
   };
 }
 
-export async function generatePaired(path, rows = 1_000_000, seed = 20240611) {
+export async function generatePaired(path, rows = 1_000_000, seed = 20240611, shuffle = false) {
   mkdirSync(dirname(path), { recursive: true });
   const rand = mulberry32(seed);
   const normal = () => {
@@ -37,7 +39,9 @@ export async function generatePaired(path, rows = 1_000_000, seed = 20240611) {
     const rackLevel = 24 + 1.8 * normal();
     const open = rackLevel + 0.6 * normal();
     const closed = rackLevel - 0.35 + 0.6 * normal();
-    block += `rk${String(i).padStart(7, '0')},${open.toFixed(3)},${closed.toFixed(3)}\n`;
+    // 999983 is prime and does not divide 10^k, so i -> i * 999983 mod rows is a permutation here.
+    const id = shuffle ? ((i * 999983) % rows) + 1 : i;
+    block += `rk${String(id).padStart(7, '0')},${open.toFixed(3)},${closed.toFixed(3)}\n`;
     if (i % 10000 === 0) {
       await write(block);
       block = '';
@@ -51,6 +55,6 @@ export async function generatePaired(path, rows = 1_000_000, seed = 20240611) {
 if (process.argv[1] === fileURLToPath(import.meta.url)) {
   const rows = Number(process.argv[2] ?? 1_000_000);
   const path = process.argv[3] ?? new URL('./out/paired-1m.csv', import.meta.url).pathname;
-  await generatePaired(path, rows);
+  await generatePaired(path, rows, undefined, process.argv.includes('--shuffle'));
   process.stdout.write(`${path}\n`);
 }

@@ -46,6 +46,11 @@ if (!existsSync(csv)) {
   await generatePaired(csv, rows);
 }
 const sizeMB = statSync(csv).size / 1e6;
+const shuffled = join(here, 'out', `paired-${rows}-shuffled-ids.csv`);
+if (!existsSync(shuffled)) {
+  process.stderr.write(`bench: generating ${shuffled} ...\n`);
+  await generatePaired(shuffled, rows, undefined, true);
+}
 const ARGS = ['analyze', '--data', csv, '--procedure', 'paired-t', '--first', 'baffle_open_c', '--second', 'baffle_closed_c'];
 const BY_ID = [...ARGS, '--id', 'rack'];
 const BY_ROW = [...ARGS, '--pair-by-row-order'];
@@ -97,12 +102,21 @@ for (let i = 0; i < rounds; i++) {
     times.pandasMb.push(p.mb);
   }
 }
+// The same by id, with the ids in scrambled order (tandem then checks them with a hash table).
+const SHUFFLED = [...BY_ID.slice(0, 2), shuffled, ...BY_ID.slice(3)];
+await inProcess(SHUFFLED);
+const shuffledRuns = [];
+for (let i = 0; i < rounds; i++) shuffledRuns.push(await inProcess(SHUFFLED));
+const shuffledIn = median(shuffledRuns);
+const shuffledCli = child(process.execPath, [bin, ...SHUFFLED]);
 const pandasMs = python ? median(times.pandas) : NaN;
 const label = `${rows.toLocaleString('en')} pairs, ${sizeMB.toFixed(1)} MB`;
 row(`analyze paired-t + diagnostics, in-process, pairs by id (${label})`, fmtS(median(times.idIn)), '< 1 s', median(times.idIn) < 1000);
 row('  the same, pairs by row order', fmtS(median(times.rowIn)), '< 1 s', median(times.rowIn) < 1000);
 row('analyze as a CLI process, pairs by id (wall, with node start)', fmtS(median(times.idCli)), '< 1 s', median(times.idCli) < 1000);
 row('  the same, pairs by row order', fmtS(median(times.rowCli)), '< 1 s', median(times.rowCli) < 1000);
+row('  pairs by id, ids in scrambled order: in-process', fmtS(shuffledIn), '< 1 s', shuffledIn < 1000);
+row('  pairs by id, ids in scrambled order: CLI process', fmtS(shuffledCli.wall), '< 1 s', shuffledCli.wall < 1000, `peak ${shuffledCli.mb.toFixed(0)} MB`);
 row('peak memory of the CLI process, pairs by id', `${Math.max(...times.idMb).toFixed(0)} MB`, '< 150 MB', Math.max(...times.idMb) < 150, hasTime ? 'max of the rounds' : 'no /usr/bin/time');
 row('  the same, pairs by row order', `${Math.max(...times.rowMb).toFixed(0)} MB`, '< 150 MB', Math.max(...times.rowMb) < 150);
 if (python) {

@@ -1,7 +1,9 @@
 /**
- * Materialising only the requested columns while a reader walks the rows. Both readers (the
- * plain scan and papaparse) feed cells through `numberCell` / `categoryCell`, so one file gives
- * the same table whichever reader ran. Problems are collected (up to a limit) and raised together.
+ * Materialising only the requested columns while a reader walks the rows. The plain scan hands
+ * cells over as bytes (`cellBytes`), papaparse as strings (`cellString`); both read a number with
+ * the same exact decimal reading (cells.ts) and intern text through the same bytes (intern.ts),
+ * so one file gives the same table whichever reader ran. Numbers go into plain arrays (NaN =
+ * missing), text into codes. Problems are collected (up to a limit) and raised together.
  */
 import { InputError } from '../errors.js';
 import type { Problem } from '../problems.js';

@@ -4,11 +4,20 @@
  * not kept: only the requested cells reach the collector. Line numbers follow papaparse's cursor,
  * so a quoted field that spans lines does not shift the lines reported after it.
  */
-import Papa from 'papaparse';
+import { createRequire } from 'node:module';
+import type * as PapaNS from 'papaparse';
 import { ColumnCollector } from './columns.js';
 import { detectDelimiter, type Delimiter, type DelimiterChoice } from './delimiter.js';
 import { cleanHeader, emptyFile } from './header.js';
 import type { ColumnRequest, Table } from './types.js';
+
+let papa: typeof PapaNS | undefined;
+
+/** papaparse is loaded on first use: files without quotes never need it. */
+function papaparse(): typeof PapaNS {
+  papa ??= createRequire(import.meta.url)('papaparse') as typeof PapaNS;
+  return papa;
+}
 
 export function parseFull(text: string, file: string, requests: ColumnRequest[], missing: ReadonlySet<string>, choice: DelimiterChoice): Table {
   const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
@@ -20,7 +29,7 @@ export function parseFull(text: string, file: string, requests: ColumnRequest[],
   let collector: ColumnCollector | null = null;
   let prevCursor = 0;
   let line = 1;
-  Papa.parse<string[]>(body, {
+  papaparse().parse<string[]>(body, {
     delimiter,
     // newline left out: papaparse detects \n, \r\n or \r from the text.
     quoteChar: '"',

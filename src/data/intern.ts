@@ -1,17 +1,33 @@
 /**
  * Distinct values of a text column (ids, groups, conditions), interned without making a string
- * per row: the UTF-8 bytes of each new value go into one growing pool, and an open-addressing
- * table keyed by an FNV-1a hash of the bytes finds a value again by comparing bytes. A column of
- * 1,000,000 distinct ids then costs a few typed arrays instead of a million strings and a Map
- * (measured about 3 times faster here, and far lighter on memory).
+ * per row: the UTF-8 bytes of each new value go into one growing pool, and each row gets the code
+ * of its value (codes count the distinct values in order of first appearance).
+ *
+ * Two ways to find a value again:
+ * - While the values arrive in increasing byte order (ids exported sorted: A01, A02, ...), a new
+ *   value only needs comparing with the previous one: greater means new, equal means the same.
+ *   No hash table is built, and a sorted million-id column costs one pass over its bytes.
+ * - At the first value out of order, an open-addressing hash table (FNV-1a over the bytes,
+ *   linear probing, load under 3/4) is built over the values so far and used from then on.
+ * Both give the same codes. A column of 1,000,000 distinct ids costs a few typed arrays instead of
+ * a million strings and a Map (measured several times faster here, and far lighter on memory).
  *
  * The plain scan interns bytes straight from the file; papaparse's strings are interned through
  * the same bytes (ASCII directly, anything else encoded as UTF-8), so both readers give every
- * value the same code. Example: intern "A7" then "A7" gives code 0 twice; "B2" then gets 1.
+ * value the same code. Example: "A7", "B2", "A7" get the codes 0, 1, 0.
  */
+import { InputError } from '../errors.js';
 
 const FNV_OFFSET = 0x811c9dc5;
 const FNV_PRIME = 0x01000193;
+/**
+ * Table entries hold code * 64 + the hash's low 6 bits: a probe skips most non-matching entries
+ * without reading the value's bytes, at the cost of capping a column at 2^31 / 64 (about 33
+ * million) distinct values.
+ */
+const TAG_BITS = 6;
+const TAG = (1 << TAG_BITS) - 1;
+export const MAX_LEVELS = 2 ** (31 - TAG_BITS);
 
 /** ASCII white space trimmed from text cells (tab, line feed, vertical tab, form feed, CR, space). */
 export function isAsciiSpace(c: number): boolean {
@@ -23,7 +39,10 @@ export class LevelPool {
   private used = 0;
   /** Value i occupies bytes offsets[i] .. offsets[i + 1] - 1. */
   private offsets: Int32Array = new Int32Array(1 << 10);
-  private table: Int32Array = new Int32Array(1 << 10).fill(-1);
+  /** Null while the values have come in increasing order (see above). */
+  private table: Int32Array | null = null;
+  /** The table size to build when one is needed (raised by `reserve`). */
+  private tableSize = 1 << 10;
   private cache: string[] = [];
   private encoder = new TextEncoder();
   count = 0;
@@ -35,44 +54,32 @@ export class LevelPool {
 
   /** The code of the bytes `src[start, end)`, adding them as a new value when unseen. */
   internBytes(src: Uint8Array, start: number, end: number): number {
-    let h = FNV_OFFSET;
-    for (let k = start; k < end; k++) h = Math.imul(h ^ src[k], FNV_PRIME);
-    const len = end - start;
-    const size = this.table.length;
-    let p = slotOf(h, size);
-    for (;;) {
-      const code = this.table[p];
-      if (code < 0) break;
-      const a = this.offsets[code];
-      if (this.offsets[code + 1] - a === len && this.sameBytes(a, src, start, len)) return code;
-      if (++p === size) p = 0;
+    if (this.table === null) {
+      const order = this.count === 0 ? 1 : this.compareLast(src, start, end);
+      if (order > 0) return this.add(src, start, end);
+      if (order === 0) return this.count - 1;
+      this.buildTable();
     }
-    return this.add(src, start, end, p);
+    return this.hashed(src, start, end);
   }
 
   /** The code of a string value (papaparse's cells, and lookups by name). */
   internString(s: string): number {
-    const found = this.find(s);
-    if (found >= 0) return found;
     const b = this.encoder.encode(s);
     return this.internBytes(b, 0, b.length);
   }
 
   /** The code of a string, or -1 when it does not occur. */
   find(s: string): number {
-    const b = isAscii(s) ? null : this.encoder.encode(s);
-    if (b) {
-      const code = this.lookup(b, 0, b.length);
-      return code;
-    }
-    let h = FNV_OFFSET;
-    for (let k = 0; k < s.length; k++) h = Math.imul(h ^ s.charCodeAt(k), FNV_PRIME);
-    const size = this.table.length;
-    for (let p = slotOf(h, size); ; p = p + 1 === size ? 0 : p + 1) {
-      const code = this.table[p];
-      if (code < 0) return -1;
-      const a = this.offsets[code];
-      if (this.offsets[code + 1] - a === s.length && this.sameChars(a, s)) return code;
+    const b = this.encoder.encode(s);
+    if (this.table === null) this.buildTable();
+    const table = this.table!;
+    const h = hashOf(b, 0, b.length);
+    for (let p = slotOf(h, table.length); ; p = p + 1 === table.length ? 0 : p + 1) {
+      const e = table[p];
+      if (e < 0) return -1;
+      const code = e >>> TAG_BITS;
+      if ((e & TAG) === (h & TAG) && this.equals(code, b, 0, b.length)) return code;
     }
   }
 
@@ -97,23 +104,46 @@ export class LevelPool {
       this.offsets = o;
     }
     const size = Math.ceil(levels / 0.7) + 1;
-    if (size > this.table.length) this.rehash(size);
-  }
-
-  private lookup(src: Uint8Array, start: number, end: number): number {
-    let h = FNV_OFFSET;
-    for (let k = start; k < end; k++) h = Math.imul(h ^ src[k], FNV_PRIME);
-    const len = end - start;
-    const size = this.table.length;
-    for (let p = slotOf(h, size); ; p = p + 1 === size ? 0 : p + 1) {
-      const code = this.table[p];
-      if (code < 0) return -1;
-      const a = this.offsets[code];
-      if (this.offsets[code + 1] - a === len && this.sameBytes(a, src, start, len)) return code;
+    if (size > this.tableSize) {
+      this.tableSize = size;
+      if (this.table) this.rehash(size);
     }
   }
 
-  private add(src: Uint8Array, start: number, end: number, slot: number): number {
+  private hashed(src: Uint8Array, start: number, end: number): number {
+    const table = this.table!;
+    const h = hashOf(src, start, end);
+    const tag = h & TAG;
+    const size = table.length;
+    let p = slotOf(h, size);
+    for (;;) {
+      const e = table[p];
+      if (e < 0) break;
+      if ((e & TAG) === tag && this.equals(e >>> TAG_BITS, src, start, end - start)) return e >>> TAG_BITS;
+      if (++p === size) p = 0;
+    }
+    const code = this.add(src, start, end);
+    table[p] = code * (TAG + 1) + tag;
+    if (this.count * 4 > size * 3) this.rehash(size * 2);
+    return code;
+  }
+
+  /** Byte order of `src[start, end)` against the last value added (a proper prefix sorts first). */
+  private compareLast(src: Uint8Array, start: number, end: number): number {
+    const bytes = this.bytes;
+    const a = this.offsets[this.count - 1];
+    const alen = this.offsets[this.count] - a;
+    const len = end - start;
+    const n = Math.min(alen, len);
+    for (let i = 0; i < n; i++) {
+      const d = src[start + i] - bytes[a + i];
+      if (d !== 0) return d;
+    }
+    return len - alen;
+  }
+
+  private add(src: Uint8Array, start: number, end: number): number {
+    if (this.count >= MAX_LEVELS) throw new InputError(`a text column holds more than ${MAX_LEVELS} distinct values (ids); tandem reads at most that many`);
     const len = end - start;
     if (this.used + len > this.bytes.length) this.bytes = growU8(this.bytes, this.used + len);
     // A plain loop: subarray() would make a Buffer object per new value (a million of them here).
@@ -125,34 +155,41 @@ export class LevelPool {
       o.set(this.offsets);
       this.offsets = o;
     }
-    const code = this.count++;
+    this.count++;
     this.offsets[this.count] = this.used;
-    this.table[slot] = code;
-    if (this.count * 4 > this.table.length * 3) this.rehash();
-    return code;
+    return this.count - 1;
   }
 
-  private sameBytes(a: number, src: Uint8Array, start: number, len: number): boolean {
-    for (let i = 0; i < len; i++) if (this.bytes[a + i] !== src[start + i]) return false;
+  private equals(code: number, src: Uint8Array, start: number, len: number): boolean {
+    const a = this.offsets[code];
+    if (this.offsets[code + 1] - a !== len) return false;
+    const bytes = this.bytes;
+    for (let i = 0; i < len; i++) if (bytes[a + i] !== src[start + i]) return false;
     return true;
   }
 
-  private sameChars(a: number, s: string): boolean {
-    for (let i = 0; i < s.length; i++) if (this.bytes[a + i] !== s.charCodeAt(i)) return false;
-    return true;
+  private buildTable(): void {
+    this.rehash(Math.max(this.tableSize, Math.ceil(this.count / 0.7) + 1));
   }
 
-  /** A larger table (load kept under 3/4, so probes stay short), every value placed again. */
-  private rehash(size = this.table.length * 2): void {
-    this.table = new Int32Array(size).fill(-1);
+  /** A table of `size` slots with every value placed again. */
+  private rehash(size: number): void {
+    const table = new Int32Array(size).fill(-1);
     for (let code = 0; code < this.count; code++) {
-      let h = FNV_OFFSET;
-      for (let k = this.offsets[code]; k < this.offsets[code + 1]; k++) h = Math.imul(h ^ this.bytes[k], FNV_PRIME);
+      const h = hashOf(this.bytes, this.offsets[code], this.offsets[code + 1]);
       let p = slotOf(h, size);
-      while (this.table[p] >= 0) if (++p === size) p = 0;
-      this.table[p] = code;
+      while (table[p] >= 0) if (++p === size) p = 0;
+      table[p] = code * (TAG + 1) + (h & TAG);
     }
+    this.table = table;
+    this.tableSize = size;
   }
+}
+
+function hashOf(src: Uint8Array, start: number, end: number): number {
+  let h = FNV_OFFSET;
+  for (let k = start; k < end; k++) h = Math.imul(h ^ src[k], FNV_PRIME);
+  return h;
 }
 
 /**
@@ -161,11 +198,6 @@ export class LevelPool {
  */
 function slotOf(h: number, size: number): number {
   return Math.floor((h >>> 0) * size * 2.3283064365386963e-10);
-}
-
-function isAscii(s: string): boolean {
-  for (let i = 0; i < s.length; i++) if (s.charCodeAt(i) > 127) return false;
-  return true;
 }
 
 function growU8(a: Uint8Array, need: number): Uint8Array {

@@ -46,7 +46,7 @@ export function fmtInterval(ci: [number, number]): string {
 export function countsText(r: ResultBlock): string {
   const n = r.n;
   const parts: string[] = [];
-  if (n.pairs !== undefined && n.first === undefined) parts.push(`${n.pairs} pairs`);
+  if (n.pairs !== undefined && n.first === undefined) parts.push(`${n.pairs} ${r.procedure === 'crossover-t' ? 'subjects' : 'pairs'}`);
   if (n.first !== undefined) parts.push(`${n.first} + ${n.second} values`);
   if (n.zeros) parts.push(`${n.zeros} zero differences`);
   if (n.ties) parts.push(`${n.ties} tied groups`);

@@ -172,7 +172,7 @@ function summarizeFlags(flags: DiagnosticFlag[], main: ResultBlock, sens: Result
   const conditions = [...new Set(doubts.map((f) => f.condition))];
   const head = `The diagnostics put ${conditions.length === 1 ? 'a condition' : 'conditions'} of the ${main.name} in doubt (${conditions.join('; ')}). The declared procedure is kept, as planned.`;
   if (!sens) return `${head} No sensitivity analysis was declared: report these diagnostics with the result rather than switching procedure after seeing the data.`;
-  return `${head} The pre-declared sensitivity analysis (${sens.name}) is the check on it: ${sens.available ? sens.reading : `not computed (${sens.unavailable?.meaning})`}.`;
+  return `${head} The pre-declared sensitivity analysis (${sens.name}) is the check on it${sens.available ? '' : `, but it could not be computed (${sens.unavailable?.meaning})`}.`;
 }
 
 function capital(s: string): string {

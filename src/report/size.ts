@@ -5,7 +5,6 @@
  */
 import type { SizePlan } from '../size/index.js';
 import type { ComparisonRow, CurvePoint, SizeSpec } from '../size/types.js';
-import { COMPARISON_RHOS } from '../size/compare.js';
 import { fmt, textTable, type Style } from './style.js';
 
 /** Words from the plan (or options) to speak in the study's terms. */
@@ -145,12 +144,11 @@ function comparisonTable(rows: ComparisonRow[], spec: SizeSpec, ctx: SizeContext
   const title = style.bold(`What pairing buys (same question; ${sigma})`);
   const foot = style.dim(
     'A pair gives two measurements, a unit in two groups one. At correlation 0 pairing gains nothing and costs degrees of freedom (a negative saving); the gain grows with the correlation within pairs.' +
-      (spec.design === 'paired' && spec.rho !== undefined && compareHas(spec.rho) ? ' * your planned correlation.' : ''),
+      (spec.design === 'paired' && spec.rho !== undefined ? ' * your planned correlation.' : ''),
   );
   return [title, textTable([...head, ...body], { right: [0, 2, 3, 5], indent: '  ' }), foot].join('\n');
 }
 
-const compareHas = (rho: number): boolean => COMPARISON_RHOS.some((r) => Math.abs(r - rho) < 1e-9);
 
 /** Power (rows, 0% to 100%) against n (columns), the target as a dashed line, the answer marked. */
 export function curvePlot(curve: CurvePoint[], spec: SizeSpec, answerN: number, style: Style): string {

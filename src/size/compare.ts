@@ -3,14 +3,14 @@
  *
  * Comparison: for a single-measurement SD sigma, pairing leaves differences with SD
  * sigma * sqrt(2 (1 - rho)) (the variance of a difference of two measurements with correlation
- * rho). For rho = 0, 0.3, 0.5, 0.7, 0.9 the table gives the pairs needed, beside the units needed
+ * rho). For rho = 0, 0.3, 0.5, 0.7, 0.9 (and the planned rho) the table gives the pairs needed, beside the units needed
  * in two independent groups with the same sigma and the same question. At rho = 0 pairing costs a
  * little (n - 1 degrees of freedom instead of 2n - 2) and gains nothing; the saving grows with rho.
  *
  * Curve: exact power at sizes from the minimum to beyond the answer, for the terminal plot.
  *
  * Example: difference 1, sigma 2, two-sided alpha 0.05, power 0.8: two groups need 64 + 64 = 128
- * units; pairs needed are 65 at rho 0, 46 at rho 0.3, 34 at rho 0.5, 22 at rho 0.7, 9 at rho 0.9.
+ * units; pairs needed are 65 at rho 0, 46 at rho 0.3, 34 at rho 0.5, 21 at rho 0.7, 9 at rho 0.9.
  */
 import { layoutFor, minimumN } from './power.js';
 import { sampleSize, planPower } from './solve.js';
@@ -37,7 +37,13 @@ export function pairingComparison(spec: SizeSpec): ComparisonRow[] | null {
   const groups = sampleSize(indep).layout;
   // Pairs compare against a common spread: with Welch spreads, the pooled one.
   const pairSigma = spec.design === 'independent' && spec.sd2 !== undefined ? Math.sqrt((sigma * sigma + spec.sd2 * spec.sd2) / 2) : sigma;
-  return COMPARISON_RHOS.map((rho) => {
+  // The planned correlation joins the standard ones when it is not among them.
+  const rhos: number[] = [...COMPARISON_RHOS];
+  if (spec.design === 'paired' && spec.rho !== undefined && !rhos.some((r) => Math.abs(r - (spec.rho as number)) < 1e-9)) {
+    rhos.push(spec.rho);
+    rhos.sort((a, b) => a - b);
+  }
+  return rhos.map((rho) => {
     const sdDiff = pairSigma * Math.sqrt(2 * (1 - rho));
     const paired: SizeSpec = { ...spec, design: 'paired', sdDiff, sd: pairSigma, sd2: undefined, rho, ratio: 1 };
     const pairs = sampleSize(paired).layout.n;

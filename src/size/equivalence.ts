@@ -16,7 +16,8 @@
  * (Welch-Satterthwaite df at the planned sizes), so that case is an approximation.
  *
  * Example: 20 pairs, sdDiff 1, margin 0.6, true difference 0, alpha 0.05: SE = 0.2236, df = 19,
- * c = 1.7291, power = 0.8055 (test/fixtures/size-power checks it against mpmath and a simulation).
+ * c = 1.7291, power = 0.6533 (test/fixtures/size-power checks such values against mpmath and a
+ * simulation).
  */
 import { normalCdf } from '../stats/distributions.js';
 import { logScaledChiDensity } from '../stats/noncentral-t.js';

@@ -3,7 +3,7 @@
  * (the answer, what pairing buys, and the power curve). Pure: numbers in, a plain object out.
  *
  * Example: planSize(resolveInputs({ design: 'paired', difference: 2.5, sd: 4, rho: 0.5 }))
- * answers 23 pairs (sdDiff = 4 * sqrt(2 * 0.5) = 4) and compares with 2 x 41 = 82 units in two
+ * answers 23 pairs (sdDiff = 4 * sqrt(2 * 0.5) = 4) and compares with 42 + 42 = 84 units in two
  * independent groups with SD 4.
  */
 import { pairingComparison, powerCurve } from './compare.js';

@@ -15,7 +15,7 @@
  *   greater:   P(T' > c), c = t(1 - alpha, df);   less: P(T' < -c).
  *
  * Example: 20 pairs, difference 3, sdDiff 6.7082 (d_z = 0.4472, ncp = 2), two-sided alpha 0.05:
- * df = 19, c = 2.0930, power = P(T' > 2.093) + P(T' < -2.093) = 0.4752 + 0.0001.
+ * df = 19, c = 2.0930, power = P(T' > 2.093) + P(T' < -2.093) = 0.47555 + 0.00006 = 0.47561.
  */
 import { noncentralTCdf, noncentralTSf } from '../stats/noncentral-t.js';
 import { tQuantile } from '../stats/distributions.js';

@@ -12,8 +12,8 @@
  * Illinois variant of regula falsi.
  *
  * Example: paired, d_z = 0.5, two-sided alpha 0.05, power 0.8: the seed ((1.96 + 0.8416)/0.5)^2
- * = 31.4 starts the search at 32; power(32) = 0.7986 < 0.8 and power(34) = 0.8208 >= 0.8; then
- * power(33) = 0.8118 decides: 33 pairs.
+ * = 31.4 starts the search at 32; power(32) = 0.7823 < 0.8, then power(34) = 0.8078 >= 0.8 and
+ * power(33) = 0.7954 < 0.8 decide: 34 pairs.
  */
 import { InputError } from '../errors.js';
 

@@ -9,7 +9,7 @@
  * recruit = ceil(n / (1 - attrition)) (common practice, no source).
  *
  * Example: paired, difference 2.5, sdDiff 4, two-sided alpha 0.05, power 0.8, attrition 0.1:
- * 23 pairs (power 0.8049; 22 pairs give 0.7868), recruit ceil(23 / 0.9) = 26.
+ * 23 pairs (power 0.8171; 22 pairs give 0.7982), recruit ceil(23 / 0.9) = 26.
  */
 import { normalQuantile } from '../stats/distributions.js';
 import { tostPower } from './equivalence.js';

@@ -21,23 +21,26 @@
  * Negative x: P(T' <= x; ncp) = P(T' >= -x; -ncp). With ncp >= 0 and t >= 0 both series have only
  * positive terms, so both tails keep their relative precision however small. With ncp < 0 the
  * lower tail at t >= 0 is at least 1/2 (Lenth's series, its alternating terms bounded by 1); the
- * upper tail there is 1 minus it while that leaves at least 1e-6, and otherwise it is integrated
+ * upper tail there is 1 minus it while that leaves at least 1e-4, and otherwise it is integrated
  * directly over the chi distribution of the denominator (see `smallUpperTail`), which has only
  * positive contributions and so keeps its digits in the far tail.
  *
- * Accuracy: checked against mpmath at 40 digits (test/fixtures/mpmath-nct) for df 2 to 10,000
- * (fractional too) and ncp 0 to 40, tails included, to a relative error below 1e-9.
+ * Accuracy: checked against mpmath at 25 digits (test/fixtures/mpmath-nct, 934 points, both tails)
+ * for df 2 to 10,000 (fractional too), ncp -7 to 40 and x from -3 to far in the upper tail, values
+ * down to 1e-290: relative error at most 1.3e-10 (df 10,000), below 1e-12 for df up to 1,000.
+ * The test holds 1e-9; the brief asked for 6 significant digits.
  *
- * Example: noncentralTSf(2.0930240544, 19, 3) = 0.8179... (the power of a two-sided paired t at
- * alpha 0.05 with 20 pairs and d_z = 3/sqrt(20), upper-tail part).
+ * Example: noncentralTSf(2.0930240544, 19, 3) = 0.81206466341633 (mpmath: 0.8120646634163271),
+ * the upper-tail part of the power of a two-sided paired t at alpha 0.05 with 20 pairs and
+ * d_z = 3/sqrt(20).
  */
 import { betainc, gammaln, normalCdf, tCdf } from './distributions.js';
 
 const LN_SQRT_2PI = 0.5 * Math.log(2 * Math.PI);
 /** Relative size of a neglected remainder. */
 const LOG_EPS = Math.log(1e-17);
-/** Beyond this the small tail is taken as 1 minus the big one (relative error then at most ~1e-9). */
-const SUBTRACT_OK = 1e-6;
+/** Above this the small tail is taken as 1 minus the big one (relative error then below ~1e-10). */
+const SUBTRACT_OK = 1e-4;
 const MAX_TERMS = 20000;
 
 /** P(T' <= x) for the noncentral t with `df` > 0 degrees of freedom and noncentrality `ncp`. */
@@ -47,7 +50,7 @@ export function noncentralTCdf(x: number, df: number, ncp: number): number {
   return lowerTail(x, df, ncp);
 }
 
-/** Upper tail P(T' > x), computed directly (never as 1 minus a number close to 1). */
+/** Upper tail P(T' > x), computed directly: a small tail is never 1 minus a number close to 1. */
 export function noncentralTSf(x: number, df: number, ncp: number): number {
   if (Number.isNaN(x) || Number.isNaN(ncp) || !(df > 0) || !Number.isFinite(ncp)) return NaN;
   if (x < 0) return lowerTail(-x, df, -ncp);
@@ -121,32 +124,37 @@ function upperTail(t: number, df: number, d: number): number {
  * is below 1e-17 of the largest term.
  */
 function lenthSum(d: number, t: number, df: number, kind: 'lower' | 'upper'): number {
-  // y = t^2/(df + t^2) and 1 - y, each formed without cancellation or overflow.
-  const r = t > 1 ? df / t / t : 0;
-  const y = t > 1 ? 1 / (1 + r) : (t * t) / (df + t * t);
-  const yc = t > 1 ? r / (1 + r) : df / (df + t * t);
+  // y = t^2/(df + t^2) and 1 - y, and their logs, each formed without cancellation or overflow
+  // (for t >> df, y rounds to 1 and only 1 - y = r/(1+r) with r = df/t^2 keeps its digits).
+  const r = t > 1 ? df / t / t : (t * t) / df;
+  const geo: Geometry =
+    t > 1
+      ? { y: 1 / (1 + r), yc: r / (1 + r), logy: -Math.log1p(r), logyc: Math.log(r) - Math.log1p(r) }
+      : { y: r / (1 + r), yc: 1 / (1 + r), logy: Math.log(r) - Math.log1p(r), logyc: -Math.log1p(r) };
   const b = df / 2;
   const lam = 0.5 * d * d;
   const k = Math.floor(d * d);
   let total = 0;
   for (const q of [0, 1]) {
-    const part = paritySum(q, Math.max(0, Math.round((k - q) / 2)), lam, y, yc, b, kind);
+    const part = paritySum(q, Math.max(0, Math.round((k - q) / 2)), lam, geo, b, kind);
     total += d < 0 && q === 1 ? -part : part;
   }
   return total;
 }
 
-function paritySum(q: number, j0: number, lam: number, y: number, yc: number, b: number, kind: 'lower' | 'upper'): number {
+interface Geometry { y: number; yc: number; logy: number; logyc: number }
+
+function paritySum(q: number, j0: number, lam: number, geo: Geometry, b: number, kind: 'lower' | 'upper'): number {
+  const { y, yc, logy, logyc } = geo;
   const logLam = Math.log(lam);
-  const logy = Math.log(y);
-  const logyc = Math.log(yc);
-  const lgb = gammaln(b);
   const a0 = (q + 1) / 2 + j0;
   const m0 = q + 2 * j0;
   // log |w_m| = -lam + (m/2) log lam - lgamma(m/2 + 1)
   const logW0 = -lam + (m0 / 2) * logLam - gammaln(m0 / 2 + 1);
-  const logT0 = a0 * logy + b * logyc + gammaln(a0 + b) - gammaln(a0 + 1) - lgb;
-  const direct = (a: number): number => betainc(y, a, b, kind === 'upper');
+  // T(a) = y^a (1-y)^b / (a B(a, b)), with log B free of large cancelling terms.
+  const logT0 = a0 * logy + b * logyc - Math.log(a0) - logBeta(a0, b);
+  // The complement as I_{1-y}(b, a), handing the incomplete beta the small argument it needs.
+  const direct = (a: number): number => (kind === 'upper' ? betainc(yc, b, a) : betainc(y, a, b));
   const v0 = direct(a0);
   const stableDir = kind === 'lower' ? -1 : 1;
   let sum = 0;
@@ -318,6 +326,23 @@ export function logScaledChiDensity(s: number, df: number, logS = Math.log(s)): 
   const e = s - 1;
   const core = Math.abs(e) < 0.5 ? Math.log1p(e) - e - 0.5 * e * e : logS - 0.5 * (s * s - 1);
   return Math.log(2) + 0.5 * Math.log(x) - LN_SQRT_2PI - stirlingCorrection(x) + df * core - logS;
+}
+
+/**
+ * log B(a, b). For a, b >= 10 Stirling's series is applied to each gamma and the large terms are
+ * combined before rounding:
+ *   log B = log(2 pi)/2 + (a - 1/2) log(a/(a+b)) + (b - 1/2) log(b/(a+b)) - log(a+b)/2
+ *           + c(a) + c(b) - c(a+b),
+ * which keeps about 15 digits where lgamma(a) + lgamma(b) - lgamma(a+b) loses four or five
+ * (the three lgammas are near 4e4 when b = 5000).
+ */
+function logBeta(a: number, b: number): number {
+  if (a < 10 || b < 10) return gammaln(a) + gammaln(b) - gammaln(a + b);
+  const s = a + b;
+  return (
+    LN_SQRT_2PI + (a - 0.5) * Math.log1p(-b / s) + (b - 0.5) * Math.log1p(-a / s) - 0.5 * Math.log(s) +
+    stirlingCorrection(a) + stirlingCorrection(b) - stirlingCorrection(s)
+  );
 }
 
 /** c(x) = lgamma(x) - [(x - 1/2) log x - x + log(2 pi)/2], by its asymptotic series for x >= 10. */

@@ -9,7 +9,7 @@ import { readFile } from 'node:fs/promises';
 import { resolve } from 'node:path';
 import type { IO } from '../io.js';
 import { EXIT } from '../exit-codes.js';
-import { boolOpt, choiceOpt, numberOpt, parseOptions, stringOpt, type Parsed } from '../options.js';
+import { boolOpt, choiceOpt, parseOptions, stringOpt, type Parsed } from '../options.js';
 import { InputError, OutputError } from '../../errors.js';
 import { loadYaml } from '../../yaml/load.js';
 import { writeFileAtomic } from '../../fs/atomic.js';
@@ -75,9 +75,31 @@ const SPEC = {
   plan: { type: 'string' }, force: { type: 'boolean' },
 } as const;
 
+const NUMERIC = new Set(['difference', 'sd', 'sd2', 'sd-diff', 'rho', 'effect-size', 'alpha', 'power', 'ratio', 'attrition', 'n', 'margin']);
+
+/** `--difference -1.5` reads as `--difference=-1.5` (a bare negative number is otherwise taken for an option). */
+function joinNegativeValues(argv: string[]): string[] {
+  const out: string[] = [];
+  for (let i = 0; i < argv.length; i++) {
+    const a = argv[i];
+    const next = argv[i + 1];
+    if (a.startsWith('--') && NUMERIC.has(a.slice(2)) && next !== undefined && /^-(\d|\.\d|Infinity)/.test(next)) {
+      out.push(`${a}=${next}`);
+      i++;
+    } else out.push(a);
+  }
+  return out;
+}
+
 /** Options as raw inputs; ranges are checked once, in resolveInputs, with the option's name. */
 function optionInputs(p: Parsed): RawSizeInputs {
-  const num = (name: string): number | undefined => numberOpt(p, name);
+  const num = (name: string): number | undefined => {
+    const text = stringOpt(p, name);
+    if (text === undefined) return undefined;
+    const v = Number(text.trim());
+    if (text.trim() === '' || Number.isNaN(v)) throw new InputError(`--${name} must be a number; got '${text}'`);
+    return v;
+  };
   const raw: RawSizeInputs = {
     design: choiceOpt(p, 'design', ['paired', 'independent'] as const),
     difference: num('difference'), sd: num('sd'), sd2: num('sd2'), sdDiff: num('sd-diff'), rho: num('rho'),
@@ -90,7 +112,7 @@ function optionInputs(p: Parsed): RawSizeInputs {
 }
 
 export default async function size(argv: string[], io: IO): Promise<number> {
-  const p = parseOptions(argv, SPEC, 'size');
+  const p = parseOptions(joinNegativeValues(argv), SPEC, 'size');
   if (p.values.help) {
     io.stdout.write(HELP);
     return EXIT.ok;
