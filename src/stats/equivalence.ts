@@ -22,7 +22,7 @@ import { dzEffect, hedgesG } from './effect-size.js';
 import { tCdf, tSf } from './distributions.js';
 import { pairedCore, pairedDetails } from './paired-t.js';
 import { constantGroupNotes } from './sample.js';
-import { tInterval } from './t-inference.js';
+import { boundsFromT } from './t-inference.js';
 import type { EffectSize, ProcedureOptions, TestResult } from './types.js';
 import { independentDetails, welchCore, welchSeDf } from './welch-t.js';
 
@@ -95,7 +95,7 @@ function tostResult(
   const pUpper = tCdf(tUpper, df);
   const upperBinds = pUpper >= pLower;
   const level = 1 - 2 * alpha;
-  const ciScaled = tInterval(estimate, se, df, level, 'two-sided');
+  const ciScaled = boundsFromT(estimate, se, df, level, 'two-sided');
   const ci: [number, number] = [ciScaled[0] / scale, ciScaled[1] / scale];
   if (![estimate / scale, ...ci].every(Number.isFinite)) {
     throw new StatsError('not-finite', 'the estimate or its interval exceeds the range of double-precision numbers (about 1.8e308); rescale the data and run again');

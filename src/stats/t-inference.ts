@@ -42,7 +42,7 @@ export function tCritical(p: number, df: number): number {
 }
 
 /** Interval for the estimate matching the alternative (two-sided, or a one-sided bound). */
-export function tInterval(estimate: number, se: number, df: number, confidence: number, alternative: Alternative): [number, number] {
+export function boundsFromT(estimate: number, se: number, df: number, confidence: number, alternative: Alternative): [number, number] {
   const alpha = 1 - confidence;
   if (alternative === 'greater') return [estimate - tCritical(alpha, df) * se, Infinity];
   if (alternative === 'less') return [-Infinity, estimate + tCritical(alpha, df) * se];
@@ -61,7 +61,7 @@ export function tInference(
   const { estimate, se, df, scale } = scaled;
   const statistic = (estimate - o.nullValue * scale) / se;
   const pValue = tPValue(statistic, df, o.alternative);
-  const ciScaled = tInterval(estimate, se, df, o.confidence, o.alternative);
+  const ciScaled = boundsFromT(estimate, se, df, o.confidence, o.alternative);
   const result: TInference = {
     estimate: estimate / scale,
     se: se / scale,

@@ -1,7 +1,7 @@
 /**
  * Sample sizes and powers against test/fixtures/size-power/size.json, written by the committed
  * generate.py beside it (scipy.stats.nct for the search, mpmath integration for the powers at n
- * and n - 1, numpy simulation for the equivalence powers and for Welch's actual power).
+ * and n - 1, numpy simulation for the equivalence powers and for Welch's achieved power).
  */
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
