@@ -12,9 +12,27 @@ export interface Parsed {
   positionals: string[];
 }
 
+/**
+ * parseArgs reads `--null -0.5` as two options; a string option followed by something that reads
+ * as a negative number takes it as its value (`--null=-0.5`), so negative values need no '='.
+ */
+function joinNegativeValues(argv: string[], spec: OptionSpec): string[] {
+  const out: string[] = [];
+  for (let i = 0; i < argv.length; i++) {
+    const a = argv[i];
+    const next = argv[i + 1];
+    const name = a.startsWith('--') ? a.slice(2) : undefined;
+    if (name && spec[name]?.type === 'string' && next !== undefined && /^-(\d|\.\d|Infinity)/.test(next)) {
+      out.push(`${a}=${next}`);
+      i++;
+    } else out.push(a);
+  }
+  return out;
+}
+
 export function parseOptions(argv: string[], spec: OptionSpec, command: string): Parsed {
   try {
-    const { values, positionals } = parseArgs({ args: argv, options: { ...spec, help: { type: 'boolean', short: 'h' } }, allowPositionals: true, strict: true });
+    const { values, positionals } = parseArgs({ args: joinNegativeValues(argv, spec), options: { ...spec, help: { type: 'boolean', short: 'h' } }, allowPositionals: true, strict: true });
     return { values: values as Parsed['values'], positionals };
   } catch (err) {
     const allowed = Object.keys(spec).map((k) => `--${k}`).join(', ');

@@ -72,6 +72,8 @@ export interface Plan {
     difference?: number;
     sd?: number;
     sdDiff?: number;
+    /** Independent designs: the second group's SD when it differs from sd (Welch). */
+    sd2?: number;
     rho?: number;
     effectSize?: number;
     alpha?: number;

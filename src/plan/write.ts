@@ -23,7 +23,7 @@ const ORDER = {
   data: ['layout', 'id', 'sequence', 'firstThenSecond', 'secondThenFirst', 'period1', 'period2', 'group', 'condition', 'first', 'second', 'value', 'firstLevel', 'secondLevel', 'pairBy', 'missing', 'delimiter'],
   condition: ['id', 'text', 'check', 'basis'],
   scope: ['causal', 'generalize', 'text'],
-  planning: ['difference', 'sd', 'sdDiff', 'rho', 'effectSize', 'alpha', 'power', 'ratio', 'attrition', 'n', 'margin'],
+  planning: ['difference', 'sd', 'sd2', 'sdDiff', 'rho', 'effectSize', 'alpha', 'power', 'ratio', 'attrition', 'n', 'margin'],
 } as const;
 
 const COMMENTS: Record<string, string> = {

@@ -11,9 +11,7 @@ import { positionOf, type LoadedYaml } from '../yaml/load.js';
 import type { RawKey, RawSizeInputs } from './inputs.js';
 
 /** Keys of the planning section, in the order they are written back. */
-export const PLANNING_KEYS = ['difference', 'sd', 'sdDiff', 'rho', 'effectSize', 'alpha', 'power', 'ratio', 'attrition', 'n', 'margin'] as const;
-/** Read when present; not yet part of the plan format's schema, so not written back. */
-const READ_ONLY_KEYS = ['sd2'] as const;
+export const PLANNING_KEYS = ['difference', 'sd', 'sd2', 'sdDiff', 'rho', 'effectSize', 'alpha', 'power', 'ratio', 'attrition', 'n', 'margin'] as const;
 
 export interface PlanSizeInputs {
   raw: RawSizeInputs;
@@ -46,7 +44,7 @@ export function sizeInputsFromPlan(loaded: LoadedYaml): PlanSizeInputs {
   if (planning !== undefined && planning !== null && !isObj(planning)) {
     problems.push({ code: 'wrong-type', file, ...at(['planning']), message: 'planning must be a mapping of numbers (difference, sd, ...)' });
   } else if (isObj(planning)) {
-    const allowed = new Set<string>([...PLANNING_KEYS, ...READ_ONLY_KEYS]);
+    const allowed = new Set<string>(PLANNING_KEYS);
     for (const [k, val] of Object.entries(planning)) {
       if (!allowed.has(k)) {
         problems.push({ code: 'unknown-key', file, ...positionOf(loaded, ['planning', k], { key: true }), message: `unknown planning key '${k}'`, hint: `allowed: ${[...allowed].join(', ')}` });

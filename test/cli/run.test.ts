@@ -49,3 +49,17 @@ describe('version', () => {
     expect(VERSION).toBe(pkg.version);
   });
 });
+
+describe('option parsing', () => {
+  it('takes a negative number as the value of the option before it', async () => {
+    const { parseOptions, numberOpt } = await import('../../src/cli/options.js');
+    const p = parseOptions(['--null', '-0.5', '--margin', '-.25', '--json'], { null: { type: 'string' }, margin: { type: 'string' }, json: { type: 'boolean' } }, 'analyze');
+    expect(numberOpt(p, 'null')).toBe(-0.5);
+    expect(numberOpt(p, 'margin')).toBe(-0.25);
+    expect(p.values.json).toBe(true);
+  });
+  it('names the unknown option and lists the allowed ones', async () => {
+    const { parseOptions } = await import('../../src/cli/options.js');
+    expect(() => parseOptions(['--nul', '1'], { null: { type: 'string' } }, 'analyze')).toThrow(/--nul.*takes: --null, --help/s);
+  });
+});

@@ -151,6 +151,20 @@ describe('tandem size PLAN and --plan', () => {
     const direct = JSON.parse((await size([...args.slice(0, -2), '--json'])).out);
     expect(again.n).toBe(direct.n);
   });
+  it('--plan writes a Welch plan\'s second SD back, and the plan stays valid', async () => {
+    const dir = scratch();
+    const f = join(dir, 'ferry.plan.yaml');
+    copyFileSync(join(PLANS, 'ferry-gates.plan.yaml'), f);
+    const args = ['--design', 'independent', '--difference', '-3', '--sd', '6', '--sd2', '9', '--alternative', 'less', '--plan', f, '--force'];
+    const ok = await size(args);
+    expect(ok.code).toBe(0);
+    expect(readFileSync(f, 'utf8')).toMatch(/^\s+sd2: 9/m);
+    const { readPlan } = await import('../../src/plan/read.js');
+    expect((await readPlan(f)).planning?.sd2).toBe(9);
+    const again = JSON.parse((await size([f, '--json'])).out);
+    const direct = JSON.parse((await size([...args.slice(0, -3), '--json'])).out);
+    expect(again.n).toBe(direct.n);
+  });
   it('refuses a plan whose design is not paired or independent, or that contradicts --design', async () => {
     const r = await size([join(PLANS, 'glaze-halves.plan.yaml'), '--design', 'independent']);
     expect(r.code).toBe(2);

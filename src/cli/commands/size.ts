@@ -75,22 +75,6 @@ const SPEC = {
   plan: { type: 'string' }, force: { type: 'boolean' },
 } as const;
 
-const NUMERIC = new Set(['difference', 'sd', 'sd2', 'sd-diff', 'rho', 'effect-size', 'alpha', 'power', 'ratio', 'attrition', 'n', 'margin']);
-
-/** `--difference -1.5` reads as `--difference=-1.5` (a bare negative number is otherwise taken for an option). */
-function joinNegativeValues(argv: string[]): string[] {
-  const out: string[] = [];
-  for (let i = 0; i < argv.length; i++) {
-    const a = argv[i];
-    const next = argv[i + 1];
-    if (a.startsWith('--') && NUMERIC.has(a.slice(2)) && next !== undefined && /^-(\d|\.\d|Infinity)/.test(next)) {
-      out.push(`${a}=${next}`);
-      i++;
-    } else out.push(a);
-  }
-  return out;
-}
-
 /** Options as raw inputs; ranges are checked once, in resolveInputs, with the option's name. */
 function optionInputs(p: Parsed): RawSizeInputs {
   const num = (name: string): number | undefined => {
@@ -112,7 +96,7 @@ function optionInputs(p: Parsed): RawSizeInputs {
 }
 
 export default async function size(argv: string[], io: IO): Promise<number> {
-  const p = parseOptions(joinNegativeValues(argv), SPEC, 'size');
+  const p = parseOptions(argv, SPEC, 'size');
   if (p.values.help) {
     io.stdout.write(HELP);
     return EXIT.ok;
@@ -190,7 +174,6 @@ async function writePlanning(path: string, shown: string, raw: RawSizeInputs, io
       doc.setIn(['planning', k], val);
     }
   }
-  if (raw.sd2 !== undefined) io.stderr.write(`tandem size: note: --sd2 is not part of the plan format's planning section yet; it was not written to ${shown}\n`);
   await writeFileAtomic(path, doc.toString(), { force: true });
   io.stderr.write(`tandem size: planning inputs written to ${shown}\n`);
 }
