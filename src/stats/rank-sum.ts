@@ -166,7 +166,7 @@ function testPart(s: TwoSampleRankSummary, U: number, n1: number, n2: number, o:
   return {
     pValue,
     variant: `normal approximation${ties ? ' with tie correction' : ''}${correction ? ' and continuity correction' : ''}`,
-    note: `p-value from the normal approximation to U (mean ${show((n1 * n2) / 2)}, SD ${show(sd)}${ties ? ', tie-corrected' : ''}), ${correction ? 'with' : 'without'} continuity correction (${why})`,
+    note: `p-value from the normal approximation to U (mean ${show((n1 * n2) / 2)}, SD ${show(Number(sd.toPrecision(6)))}${ties ? ', tie-corrected' : ''}), ${correction ? 'with' : 'without'} continuity correction (${why})`,
     z,
     sd,
     correction,

@@ -166,7 +166,7 @@ function testPart(s: SignedRankSummary, o: ProcedureOptions): TestPart {
     pValue,
     variant: `normal approximation${s.tiedGroups > 0 ? ' with tie correction' : ''}${correction ? ' and continuity correction' : ''}`,
     note:
-      `p-value from the normal approximation to W+ (mean ${show(top / 2)}, SD ${show(sd)}${s.tiedGroups > 0 ? ', tie-corrected' : ''}), ` +
+      `p-value from the normal approximation to W+ (mean ${show(top / 2)}, SD ${show(Number(sd.toPrecision(6)))}${s.tiedGroups > 0 ? ', tie-corrected' : ''}), ` +
       `${correction ? 'with' : 'without'} continuity correction (${asked}${why})` +
       (m < 10 ? '; with fewer than 10 ranked differences the approximation is rough' : ''),
     z,

@@ -1,23 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { Readable } from 'node:stream';
 import { run } from '../../src/cli/run.js';
-import type { IO } from '../../src/cli/io.js';
-
-function memoryIO(): IO & { out: () => string; err: () => string } {
-  let out = '';
-  let err = '';
-  return {
-    stdout: { write: (s: string) => (out += s) },
-    stderr: { write: (s: string) => (err += s) },
-    stdin: Readable.from([]),
-    interactive: false,
-    color: false,
-    env: {},
-    cwd: process.cwd(),
-    out: () => out,
-    err: () => err,
-  };
-}
+import { memoryIO } from '../helpers/io.js';
 
 describe('run(argv, io)', () => {
   it('lists the commands and exits 0 on --help', async () => {
