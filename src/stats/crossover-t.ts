@@ -32,7 +32,7 @@
  */
 import { StatsError } from '../errors.js';
 import { checkCount, checkFinite, isRoundingLevel, maxAbs, scaleFor, show, summarize, type Summary } from './sample.js';
-import { intervalNote, tInference } from './t-inference.js';
+import { intervalNote, tInference, tResultFields } from './t-inference.js';
 import type { ProcedureInput, ProcedureOptions, TestResult } from './types.js';
 
 type CrossoverInput = Extract<ProcedureInput, { kind: 'crossover' }>;
@@ -64,16 +64,8 @@ export function crossoverT(input: CrossoverInput, o: ProcedureOptions): TestResu
   return {
     procedure: 'crossover-t',
     method: '2x2 crossover: half period differences compared between sequence groups (Hills and Armitage 1979)',
-    estimate: inf.estimate,
+    ...tResultFields(inf, pooled.df, o),
     estimateName: 'treatment effect (first minus second), adjusted for the period effect',
-    ci: inf.ci,
-    confidence: o.confidence,
-    statistic: inf.statistic,
-    statisticName: 't',
-    df: pooled.df,
-    pValue: inf.pValue,
-    alternative: o.alternative,
-    nullValue: o.nullValue,
     n: { pairs: h1.n + h2.n },
     effectSize: null,
     notes: [

@@ -17,7 +17,7 @@
  */
 import { dzEffect } from './effect-size.js';
 import { checkCount, checkFinite, checkSameLength, isRoundingLevel, maxAbs, noVariation, scaleFor, summarize, type Summary } from './sample.js';
-import { intervalNote, tInference } from './t-inference.js';
+import { intervalNote, tInference, tResultFields } from './t-inference.js';
 import type { ProcedureOptions, TestResult } from './types.js';
 
 /** The paired differences in scaled units, with their summary; shared with paired equivalence. */
@@ -54,16 +54,8 @@ export function pairedT(first: number[], second: number[], o: ProcedureOptions):
   return {
     procedure: 'paired-t',
     method: 'paired t on the differences',
-    estimate: inf.estimate,
+    ...tResultFields(inf, df, o),
     estimateName: 'mean difference (first minus second)',
-    ci: inf.ci,
-    confidence: o.confidence,
-    statistic: inf.statistic,
-    statisticName: 't',
-    df,
-    pValue: inf.pValue,
-    alternative: o.alternative,
-    nullValue: o.nullValue,
     n: { pairs: n },
     effectSize: es.effect,
     notes: [...intervalNote(o.alternative), ...es.notes],

@@ -18,7 +18,7 @@
 import { StatsError } from '../errors.js';
 import { hedgesG } from './effect-size.js';
 import { constantGroupNotes, independentCore, type IndependentCore } from './sample.js';
-import { intervalNote, tInference } from './t-inference.js';
+import { intervalNote, tInference, tResultFields } from './t-inference.js';
 import type { ProcedureOptions, TestResult } from './types.js';
 import { independentDetails } from './welch-t.js';
 
@@ -42,16 +42,8 @@ export function pooledT(first: number[], second: number[], o: ProcedureOptions):
   return {
     procedure: 'pooled-t',
     method: 'pooled two-sample t (equal spreads assumed)',
-    estimate: inf.estimate,
+    ...tResultFields(inf, df, o),
     estimateName: 'difference in means (first minus second)',
-    ci: inf.ci,
-    confidence: o.confidence,
-    statistic: inf.statistic,
-    statisticName: 't',
-    df,
-    pValue: inf.pValue,
-    alternative: o.alternative,
-    nullValue: o.nullValue,
     n: { first: c.first.n, second: c.second.n },
     effectSize: es ? es.effect : null,
     notes: [

@@ -19,7 +19,7 @@
  */
 import { StatsError } from '../errors.js';
 import { tCdf, tQuantile, tSf } from './distributions.js';
-import type { Alternative, ProcedureOptions } from './types.js';
+import type { Alternative, ProcedureOptions, TestResult } from './types.js';
 
 export interface TInference {
   estimate: number;
@@ -89,4 +89,23 @@ export function intervalNote(alternative: Alternative): string[] {
   if (alternative === 'greater') return ['one-sided alternative (greater): the interval is a lower confidence bound; its upper end is +Infinity'];
   if (alternative === 'less') return ['one-sided alternative (less): the interval is an upper confidence bound; its lower end is -Infinity'];
   return [];
+}
+
+/** The fields every t-based TestResult shares, from its inference, its df and the options. */
+export function tResultFields(
+  inf: TInference,
+  df: number,
+  o: ProcedureOptions,
+): Pick<TestResult, 'estimate' | 'ci' | 'confidence' | 'statistic' | 'statisticName' | 'df' | 'pValue' | 'alternative' | 'nullValue'> {
+  return {
+    estimate: inf.estimate,
+    ci: inf.ci,
+    confidence: o.confidence,
+    statistic: inf.statistic,
+    statisticName: 't',
+    df,
+    pValue: inf.pValue,
+    alternative: o.alternative,
+    nullValue: o.nullValue,
+  };
 }

@@ -18,7 +18,7 @@
  */
 import { hedgesG } from './effect-size.js';
 import { constantGroupNotes, independentCore, type IndependentCore } from './sample.js';
-import { intervalNote, tInference } from './t-inference.js';
+import { intervalNote, tInference, tResultFields } from './t-inference.js';
 import type { ProcedureOptions, TestResult } from './types.js';
 
 /** Welch standard error and degrees of freedom in scaled units. */
@@ -43,16 +43,8 @@ export function welchT(first: number[], second: number[], o: ProcedureOptions): 
   return {
     procedure: 'welch-t',
     method: 'Welch two-sample t (Welch-Satterthwaite degrees of freedom)',
-    estimate: inf.estimate,
+    ...tResultFields(inf, df, o),
     estimateName: 'difference in means (first minus second)',
-    ci: inf.ci,
-    confidence: o.confidence,
-    statistic: inf.statistic,
-    statisticName: 't',
-    df,
-    pValue: inf.pValue,
-    alternative: o.alternative,
-    nullValue: o.nullValue,
     n: { first: c.first.n, second: c.second.n },
     effectSize: es.effect,
     notes: [
