@@ -20,7 +20,7 @@
  * simulation).
  */
 import { normalCdf } from '../stats/distributions.js';
-import { logScaledChiDensity } from '../stats/noncentral-t.js';
+import { logScaledChiDensity } from '../stats/noncentral-t-tail.js';
 import { integrate } from './quadrature.js';
 
 export function tostPower(se: number, df: number, delta: number, margin: number, c: number): number {

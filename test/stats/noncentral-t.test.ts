@@ -5,7 +5,8 @@
  */
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { noncentralTCdf, noncentralTQuantile, noncentralTSf, smallUpperTail } from '../../src/stats/noncentral-t.js';
+import { noncentralTCdf, noncentralTQuantile, noncentralTSf } from '../../src/stats/noncentral-t.js';
+import { smallUpperTail } from '../../src/stats/noncentral-t-tail.js';
 import { tCdf } from '../../src/stats/distributions.js';
 
 interface NctRecord { x: number; df: number; ncp: number; cdf: number; sf: number }
