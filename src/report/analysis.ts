@@ -54,7 +54,7 @@ export function buildAnalysis(spec: AnalysisSpec, prepared: PreparedData, data: 
   const scope = spec.scope?.text ?? QUICK_SCOPE;
   const conclusion = [
     `Direction: ${difference.replace(/\.\s*$/, '')}.`,
-    main.available ? `${capital(estimateWords(main, words))}.` : `The ${main.name} could not be computed: ${main.unavailable?.message}`,
+    main.available ? `${capital(estimateWords(main, words))}.` : `The ${main.name} could not be computed: ${(main.unavailable?.message ?? '').replace(/\.?\s*$/, '.')}`,
     main.available ? `${capital(main.reading)}.` : `What this means: ${main.unavailable?.meaning}.`,
     ...(doubts ? [flagSummary!] : []),
     ...(agree ? [agree] : []),
