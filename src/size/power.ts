@@ -74,9 +74,3 @@ export function powerAtNcp(ncp: number, df: number, alpha: number, alternative: 
   if (alternative === 'less') return noncentralTCdf(-c, df, ncp);
   return noncentralTSf(c, df, ncp) + noncentralTCdf(-c, df, ncp);
 }
-
-/** Exact power of the planned test at size n for the given true difference. */
-export function powerAt(spec: SizeSpec, n: number, difference = spec.difference): number {
-  const l = layoutFor(spec, n);
-  return powerAtNcp(difference / l.se, l.df, spec.alpha, spec.alternative);
-}

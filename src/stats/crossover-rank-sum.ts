@@ -14,15 +14,19 @@
  */
 import type { ProcedureInput, ProcedureOptions, TestResult } from './types.js';
 import { rankSum } from './rank-sum.js';
+import { checkFinite } from './sample.js';
 import { StatsError } from '../errors.js';
 
 type CrossoverInput = Extract<ProcedureInput, { kind: 'crossover' }>;
 
+/** (period 1 - period 2) / 2 per subject; halving first keeps 1e308-sized values finite. */
 function halfDifferences(seq: { period1: number[]; period2: number[] }, label: string): number[] {
+  checkFinite(seq.period1, `crossover rank-sum, ${label} period 1`);
+  checkFinite(seq.period2, `crossover rank-sum, ${label} period 2`);
   if (seq.period1.length !== seq.period2.length) {
     throw new StatsError('invalid-option', `crossover rank-sum: sequence ${label} has ${seq.period1.length} period 1 values but ${seq.period2.length} period 2 values`);
   }
-  return seq.period1.map((p1, i) => (p1 - seq.period2[i]) / 2);
+  return seq.period1.map((p1, i) => p1 / 2 - seq.period2[i] / 2);
 }
 
 export function crossoverRankSum(input: CrossoverInput, o: ProcedureOptions): TestResult {

@@ -22,7 +22,10 @@
  * Table A.4, from memory). Rank-sum m = n = 4: P(U <= 1) = 2/70 = 0.028571.
  */
 
-/** Above these sizes an exact distribution is refused (cost grows as n^3 / (m + n) m^2 n). */
+/**
+ * Above these sizes an exact distribution is refused. The work grows as n^3 for the signed-rank
+ * counts and as (m + n) min(m, n) m n for the rank-sum counts (`rankSumCost`).
+ */
 export const SIGNED_RANK_EXACT_MAX = 500;
 export const RANK_SUM_EXACT_MAX_COST = 2e8;
 

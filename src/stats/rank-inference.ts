@@ -1,7 +1,7 @@
 /**
  * What the signed-rank and rank-sum procedures share: p-values from a counted exact distribution
- * or from the normal approximation, and the ranks of the order statistics that bound the
- * Hodges-Lehmann interval.
+ * or from the normal approximation, the ranks of the order statistics that bound the
+ * Hodges-Lehmann interval, and the estimate and interval read at those ranks.
  *
  * Normal approximation with continuity correction c = 0.5 (when asked):
  *   greater: z = (S - mean - c) / sd,  p = P(Z >= z)
@@ -26,7 +26,19 @@
 import { StatsError } from '../errors.js';
 import { normalCdf, normalQuantile, normalSf } from './distributions.js';
 import { lowerQuantile, type Tails } from './rank-exact.js';
+import type { MatrixSelector } from './rank-select.js';
 import type { Alternative } from './types.js';
+
+/** How a rank procedure's p-value was obtained (exact counts, or the normal approximation). */
+export interface RankTestPart {
+  pValue: number;
+  variant: string;
+  note: string;
+  /** Normal approximation only (null for the exact distribution). */
+  z: number | null;
+  sd: number | null;
+  correction: boolean | null;
+}
 
 export function exactPValue(t: Tails, alternative: Alternative): number {
   if (alternative === 'greater') return t.upper;
@@ -108,8 +120,27 @@ export function pct(x: number): string {
   return `${Number((100 * x).toFixed(2))}%`;
 }
 
+/**
+ * The Hodges-Lehmann estimate (median of the Walsh averages or pairwise differences) and the
+ * interval ends at `ranks`, divided by the data's power-of-two scale `f`.
+ */
+export function hodgesLehmann(sel: MatrixSelector, ranks: IntervalRanks, f: number, alternative: Alternative): { estimate: number; ci: [number, number] } {
+  // One batch: the middle order statistic(s) and the interval ends share their first rounds.
+  const ends = [ranks.lower, ranks.upper].filter((r): r is number => r !== null);
+  const [middle, ...found] = sel.medianAnd(ends);
+  const at = (r: number): number => found[ends.indexOf(r)];
+  // `+ 0` folds -0 into 0 for the report.
+  const ci: [number, number] = [
+    ranks.lower === null ? -Infinity : at(ranks.lower) / f + 0,
+    ranks.upper === null ? Infinity : at(ranks.upper) / f + 0,
+  ];
+  const estimate = middle / f + 0;
+  assertRepresentable(estimate, ci, alternative);
+  return { estimate, ci };
+}
+
 /** The data are finite, but an estimate or interval end beyond about 1.8e308 cannot be reported. */
-export function assertRepresentable(estimate: number, ci: [number, number], alternative: Alternative): void {
+function assertRepresentable(estimate: number, ci: [number, number], alternative: Alternative): void {
   const ends = [alternative === 'less' ? 0 : ci[0], alternative === 'greater' ? 0 : ci[1]];
   if (![estimate, ...ends].every(Number.isFinite)) {
     throw new StatsError(

@@ -146,7 +146,7 @@ export class MatrixSelector {
 
   /** Median of all entries (mean of the two middle ones when the count is even). */
   median(): number {
-    return medianFrom(this.m.size, (ranks) => this.kths(ranks));
+    return this.medianAnd([])[0];
   }
 
   /** The median together with other order statistics, all in one batch: [median, ...values]. */
@@ -157,21 +157,6 @@ export class MatrixSelector {
     const med = middle.length === 1 ? values[0] : values[0] * 0.5 + values[1] * 0.5;
     return [med, ...values.slice(middle.length)];
   }
-}
-
-function medianFrom(size: number, select: (ranks: number[]) => number[]): number {
-  if (size % 2 === 1) return select([(size + 1) / 2])[0];
-  const [a, b] = select([size / 2, size / 2 + 1]);
-  return a * 0.5 + b * 0.5;
-}
-
-/** The k-th smallest entry (one-off; use MatrixSelector for several). */
-export function selectKth(m: SumMatrix, k: number): number {
-  return new MatrixSelector(m).kth(k);
-}
-
-export function matrixMedian(m: SumMatrix): number {
-  return new MatrixSelector(m).median();
 }
 
 function clamp(x: number, a: number, b: number): number {

@@ -29,7 +29,7 @@
  * PS = 11/12 = 0.917.
  */
 import { StatsError } from '../errors.js';
-import { assertRepresentable, exactIntervalRanks, exactPValue, normalIntervalRanks, normalPValue, pct, type IntervalRanks } from './rank-inference.js';
+import { exactIntervalRanks, exactPValue, hodgesLehmann, normalIntervalRanks, normalPValue, pct, type IntervalRanks, type RankTestPart } from './rank-inference.js';
 import { RANK_SUM_EXACT_MAX_COST, rankSumCost, rankSumCounts, tailsOf } from './rank-exact.js';
 import { MatrixSelector, shiftMatrix } from './rank-select.js';
 import { superiorityInterval } from './rank-superiority.js';
@@ -69,17 +69,7 @@ export function rankSum(first: number[], second: number[], o: ProcedureOptions):
   const ranks: IntervalRanks = ciExact
     ? exactIntervalRanks(rankSumCounts(n1, n2), size, o.confidence, o.alternative)
     : normalIntervalRanks(size, Math.sqrt((size * (N + 1)) / 12), o.confidence, o.alternative);
-  // One batch: the middle order statistic(s) and the interval ends share their first rounds.
-  const ends = [ranks.lower, ranks.upper].filter((r): r is number => r !== null);
-  const [middle, ...found] = sel.medianAnd(ends);
-  const at = (r: number | null): number => found[ends.indexOf(r as number)];
-  // `+ 0` folds -0 into 0 for the report.
-  const ci: [number, number] = [
-    ranks.lower === null ? -Infinity : at(ranks.lower) / f + 0,
-    ranks.upper === null ? Infinity : at(ranks.upper) / f + 0,
-  ];
-  const estimate = middle / f + 0;
-  assertRepresentable(estimate, ci, o.alternative);
+  const { estimate, ci } = hodgesLehmann(sel, ranks, f, o.alternative);
   const ps = countSuperiority(x, y) / size;
   const psCi = superiorityInterval(ps, n1, n2, o.confidence, o.alternative);
   return {
@@ -131,16 +121,7 @@ function exactAllowed(n1: number, n2: number, o: ProcedureOptions): boolean {
   return n1 < AUTO_EXACT_BELOW && n2 < AUTO_EXACT_BELOW;
 }
 
-interface TestPart {
-  pValue: number;
-  variant: string;
-  note: string;
-  z: number | null;
-  sd: number | null;
-  correction: boolean | null;
-}
-
-function testPart(s: TwoSampleRankSummary, U: number, n1: number, n2: number, o: ProcedureOptions): TestPart {
+function testPart(s: TwoSampleRankSummary, U: number, n1: number, n2: number, o: ProcedureOptions): RankTestPart {
   const ties = s.tiedGroups > 0;
   if (o.method !== 'normal' && !ties && exactAllowed(n1, n2, o)) {
     return {

@@ -106,18 +106,6 @@ export function summarize(values: ArrayLike<number>, scale = 1): Summary {
   return { n, mean: m, variance, sd: Math.sqrt(variance), min, max };
 }
 
-/** Plain mean, scale-safe (convenience for callers outside the t family). */
-export function mean(values: ArrayLike<number>): number {
-  const f = scaleFor(values);
-  return summarize(values, f).mean / f;
-}
-
-/** Sample variance (divisor n - 1), scale-safe; may be Infinity only if the true value exceeds double range. */
-export function variance(values: ArrayLike<number>): number {
-  const f = scaleFor(values);
-  return summarize(values, f).variance / f / f;
-}
-
 /**
  * True when a sample's spread is no larger than floating-point rounding of its inputs can make it:
  * the range is at most 4 units in the last place of the largest input magnitude (`inputScale`,

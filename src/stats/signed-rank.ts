@@ -27,7 +27,7 @@
  * [0.15, 2.65] (Walsh averages 9 and 47 of 55); scipy 1.10 gives the same p-value.
  */
 import { StatsError } from '../errors.js';
-import { assertRepresentable, exactIntervalRanks, exactPValue, normalIntervalRanks, normalPValue, pct, type IntervalRanks } from './rank-inference.js';
+import { exactIntervalRanks, exactPValue, hodgesLehmann, normalIntervalRanks, normalPValue, pct, type IntervalRanks, type RankTestPart } from './rank-inference.js';
 import { SIGNED_RANK_EXACT_MAX, signedRankCounts, tailsOf, twoPow } from './rank-exact.js';
 import { MatrixSelector, walshMatrix } from './rank-select.js';
 import { roundingTolerance, shiftedCopy, signedRankSweep, type SignedRankSummary } from './rank-ties.js';
@@ -68,17 +68,7 @@ export function signedRank(first: number[], second: number[], o: ProcedureOption
   const ranks: IntervalRanks = ciExact
     ? exactIntervalRanks(signedRankCounts(n), size, o.confidence, o.alternative, twoPow(n))
     : normalIntervalRanks(size, Math.sqrt((n * (n + 1) * (2 * n + 1)) / 24), o.confidence, o.alternative);
-  // One batch: the middle order statistic(s) and the interval ends share their first rounds.
-  const ends = [ranks.lower, ranks.upper].filter((r): r is number => r !== null);
-  const [middle, ...found] = sel.medianAnd(ends);
-  const at = (r: number | null): number => found[ends.indexOf(r as number)];
-  // `+ 0` folds -0 into 0 for the report.
-  const ci: [number, number] = [
-    ranks.lower === null ? -Infinity : at(ranks.lower) / f + 0,
-    ranks.upper === null ? Infinity : at(ranks.upper) / f + 0,
-  ];
-  const estimate = middle / f + 0;
-  assertRepresentable(estimate, ci, o.alternative);
+  const { estimate, ci } = hodgesLehmann(sel, ranks, f, o.alternative);
   const top = (s.nonZero * (s.nonZero + 1)) / 2;
   return {
     procedure: 'signed-rank',
@@ -128,16 +118,7 @@ export function signedRank(first: number[], second: number[], o: ProcedureOption
   };
 }
 
-interface TestPart {
-  pValue: number;
-  variant: string;
-  note: string;
-  z: number | null;
-  sd: number | null;
-  correction: boolean | null;
-}
-
-function testPart(s: SignedRankSummary, o: ProcedureOptions): TestPart {
+function testPart(s: SignedRankSummary, o: ProcedureOptions): RankTestPart {
   const m = s.nonZero;
   const clean = s.tiedGroups === 0 && s.zeros === 0;
   const limit = o.method === 'exact' ? SIGNED_RANK_EXACT_MAX : AUTO_EXACT_MAX;

@@ -89,7 +89,7 @@ export function twoProportions(first: number[], second: number[], o: ProcedureOp
     notes: [
       `events: ${x1} of ${n1} in first, ${x2} of ${n2} in second`,
       fisherPrimary
-        ? `primary p-value: Fisher's exact test (${why}); two-sided as the sum over tables no more probable than the observed`
+        ? `primary p-value: Fisher's exact test (${why})${o.alternative === 'two-sided' ? '; two-sided as the sum over tables no more probable than the observed' : `; one-sided, P(events in first ${o.alternative === 'greater' ? '>=' : '<='} ${x1}) given the margins`}`
         : `primary p-value: z test with pooled proportion (${why}); Fisher's exact p-value is in details`,
       `interval: Newcombe (1998a) method 10 (hybrid of two Wilson score intervals)${o.alternative === 'two-sided' ? '' : `; one-sided (${o.alternative === 'greater' ? 'upper end 1' : 'lower end -1'})`}`,
       ...(or !== null && (or.estimate === 0 || or.estimate === Infinity) ? [`the odds ratio is ${or.estimate === 0 ? '0' : 'infinite'}: a cell of the 2x2 table is empty; its interval is one-sided`] : []),

@@ -30,6 +30,20 @@ describe('rank-sum on crossover data (Koch 1972)', () => {
     expect(b.estimate).toBeCloseTo(a.estimate, 12);
     expect(b.pValue).toBeCloseTo(a.pValue, 12);
   });
+  it('a missing value names the sequence and period; 1e308-sized values do not overflow the half differences', () => {
+    const broken = { ...input, secondThenFirst: { ...input.secondThenFirst, period2: [12, NaN, 14, 11] } };
+    expect(() => runProcedure('rank-sum', broken)).toThrow(/crossover rank-sum, secondThenFirst period 2: value #2 is NaN/);
+    const k = 1e308;
+    const big = {
+      kind: 'crossover' as const,
+      // Half differences 1.5, 1.4, 1.6 and 1.0, 1.1, 0.9 (x 1e308); period 1 - period 2 itself overflows.
+      firstThenSecond: { period1: [1.5, 1.4, 1.6].map((v) => v * k), period2: [-1.5, -1.4, -1.6].map((v) => v * k) },
+      secondThenFirst: { period1: [1.0, 1.1, 0.9].map((v) => v * k), period2: [-1.0, -1.1, -0.9].map((v) => v * k) },
+    };
+    const r = runProcedure('rank-sum', big);
+    expect(r.statistic).toBe(9);
+    expect(r.estimate / k).toBeCloseTo(0.5, 12);
+  });
   it('other procedures refuse crossover data with the ones that take it named', () => {
     expect(() => runProcedure('welch-t', input)).toThrow(/crossover-t and rank-sum/);
   });

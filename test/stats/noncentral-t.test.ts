@@ -35,7 +35,7 @@ describe('noncentral t against mpmath', () => {
     expect(fixture.records.some((r) => Math.min(r.cdf, r.sf) < 1e-30)).toBe(true);
   });
 
-  // The brief asks for 6 significant digits; we hold 1e-9 relative on both tails everywhere.
+  // Issue 4 asks for 6 significant digits; we hold 1e-9 relative on both tails everywhere.
   const TOL = 1e-9;
   it(`lower tail P(T' <= x) to relative ${TOL}, tails included`, () => {
     const failures = fixture.records

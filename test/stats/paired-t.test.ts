@@ -17,7 +17,7 @@ describe('paired t against scipy fixtures', () => {
         const label = `${f.name} ${alt} vs ${SCIPY}`;
         close(r.statistic, want.statistic, 1e-10, `${label} t`);
         expect(r.df).toBe(want.df);
-        // p-values: 1e-9 relative everywhere, including p near 1e-15 (brief: 6 digits to 1e-12).
+        // p-values: 1e-9 relative everywhere, including p near 1e-15 (issue 3 asks for 6 digits down to 1e-12).
         close(r.pValue, want.pValue, 1e-9, `${label} p`);
         closeCi(r.ci, want.ci, 1e-10, `${label} interval`, Math.abs(f.estimate) + 1e-3 * Math.abs(r.details.se as number));
         close(r.estimate, f.estimate, 1e-12, `${label} estimate`, 1e-12);

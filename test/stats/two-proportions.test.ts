@@ -106,6 +106,13 @@ describe('two-proportions behaviour and edge cases', () => {
     expect(r.variant).toBe("Fisher's exact test");
     expect(r.effectSize).toBeNull();
   });
+  it("a one-sided Fisher p-value is described as one-sided, not as the two-sided sum", () => {
+    const g = twoProportions(group(9, 10), group(3, 10), opts({ alternative: 'greater' }));
+    expect(g.variant).toBe("Fisher's exact test");
+    expect(g.notes.join(' ')).toMatch(/one-sided, P\(events in first >= 9\) given the margins/);
+    expect(g.notes.join(' ')).not.toMatch(/two-sided as the sum/);
+    expect(twoProportions(group(9, 10), group(3, 10), opts()).notes.join(' ')).toMatch(/two-sided as the sum/);
+  });
   it('one-sided alternatives: interval ends at 1 or -1', () => {
     expect(twoProportions(group(9, 10), group(3, 10), opts({ alternative: 'greater' })).ci[1]).toBe(1);
     expect(twoProportions(group(9, 10), group(3, 10), opts({ alternative: 'less' })).ci[0]).toBe(-1);
