@@ -225,7 +225,7 @@ function failureProblems(rb: RuleBase, failures: Map<string, { stage: Stage; mat
     }
   }
   for (const [stage, n] of perStage) {
-    if (n > EXAMPLES_PER_STAGE) out.push({ file: rb.files[0] ?? rb.dir, code: stage === 'rules' ? 'incomplete' : 'incomplete', message: `${n - EXAMPLES_PER_STAGE} more distinct ${STAGE_WORDS[stage]} failures not listed` });
+    if (n > EXAMPLES_PER_STAGE) out.push({ file: rb.files[0] ?? rb.dir, code: 'incomplete', message: `${n - EXAMPLES_PER_STAGE} more distinct ${STAGE_WORDS[stage]} failures not listed` });
   }
   return out;
 }

@@ -74,8 +74,7 @@ export function decide(rb: RuleBase, facts: Facts, trace?: TraceStep[]): Decisio
   for (const id of proc?.conditions ?? []) {
     const c = rb.conditions.get(id);
     if (!c) continue;
-    const steps: TraceStep[] = [];
-    if (!c.when || evaluate(c.when, facts, { predicates: rb.predicates, rule: `condition:${id}`, trace: steps, memo })) d.conditions.push(id);
+    if (!c.when || evaluate(c.when, facts, { predicates: rb.predicates, rule: `condition:${id}`, memo })) d.conditions.push(id);
   }
   return d;
 }

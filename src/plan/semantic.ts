@@ -7,6 +7,7 @@
 import type { ProblemCode } from '../problems.js';
 import { PROCEDURES, proceduresOf, sensitivityAllowed } from './procedures.js';
 import type { Plan } from './types.js';
+import type { ProcedureId } from '../stats/types.js';
 
 export interface PlanFinding {
   code: ProblemCode;
@@ -15,6 +16,9 @@ export interface PlanFinding {
   message: string;
   hint?: string;
 }
+
+/** Procedures without a separate equivalence form: an equivalence aim is judged by their interval. */
+const MARGIN_BY_INTERVAL: readonly ProcedureId[] = ['mcnemar', 'two-proportions', 'signed-rank', 'rank-sum', 'crossover-t'];
 
 export function semanticFindings(plan: Plan): PlanFinding[] {
   const out: PlanFinding[] = [];
@@ -34,9 +38,12 @@ export function semanticFindings(plan: Plan): PlanFinding[] {
   if (facts.equivalence && plan.procedure.margin === undefined) {
     add('missing-key', ['procedure'], `procedure '${id}' is an equivalence test and needs procedure.margin`, 'a positive number in the outcome unit: equivalent means the difference lies within [-margin, +margin]');
   }
+  // For an equivalence aim the rule base keeps the yes/no, rank and crossover procedures and
+  // judges equivalence by their own 90% interval (rules/selections.yaml), so they carry the
+  // margin too; only the t procedures, which have a separate equivalence form, take none.
   const margin = plan.procedure.margin;
-  if (margin !== undefined && !facts.equivalence && !facts.binary) {
-    add('unknown-key', ['procedure', 'margin'], `procedure.margin is only used by the equivalence procedures (paired-equivalence, welch-equivalence) and, for an equivalence aim, by the binary ones; not by '${id}'`, 'remove margin, or choose an equivalence procedure');
+  if (margin !== undefined && !facts.equivalence && !MARGIN_BY_INTERVAL.includes(id)) {
+    add('unknown-key', ['procedure', 'margin'], `procedure.margin is only used for an equivalence aim: by the equivalence procedures (paired-equivalence, welch-equivalence) and, judged by their interval, by ${MARGIN_BY_INTERVAL.join(', ')}; not by '${id}'`, 'remove margin, or choose an equivalence procedure');
   }
   // Binary procedures judge equivalence by their interval for a difference of proportions.
   if (margin !== undefined && facts.binary && margin >= 1) {

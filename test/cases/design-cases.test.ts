@@ -14,6 +14,7 @@ import { walkAnswers } from '../../src/engine/facts.js';
 import type { Answers } from '../../src/engine/types.js';
 import { projectRoot } from '../../src/paths.js';
 import { loadYaml } from '../../src/yaml/load.js';
+import { checkPlanObject, planFromRecommendation } from '../../src/plan/index.js';
 
 interface DesignCase {
   id: string;
@@ -87,6 +88,15 @@ describe('design cases', () => {
     } else {
       expect(rec.design.instead).toBeTruthy();
     }
+    // A yes/no outcome has no "higher value": one-sided hypotheses speak of how common the event is.
+    if (rec.design.family !== 'other' && c.answers.outcome_type === 'binary' && /higher$/.test(String(c.answers.direction))) {
+      const words = `${rec.hypotheses.nullWords} ${rec.hypotheses.alternativeWords}`;
+      expect(words).toMatch(/more common under/);
+      expect(words).not.toMatch(/gives (no )?higher/);
+    }
+    // Whatever the rule base recommends must make a plan that passes 'tandem plan check'
+    // (an equivalence aim with a rank, crossover or yes/no procedure carries its margin).
+    if (rec.procedure.id !== null) expect(checkPlanObject(planFromRecommendation(rec)), 'plan problems').toEqual([]);
     if (c.answers.people_or_safety !== 'none') {
       expect(rec.cautions.join(' ')).toMatch(/does not replace a qualified statistician, an ethics review or a protocol's\s+pre-specified analysis plan/);
     }

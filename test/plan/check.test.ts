@@ -127,7 +127,7 @@ describe('plan check: the parts must agree', () => {
     expect(one(noMargin)[0].message).toMatch(/equivalence test and needs procedure.margin/);
     const stray = valid().replace('  nullValue: 0', '  nullValue: 0\n  margin: 2');
     expect(one(stray)[0]).toMatchObject({ code: 'unknown-key', ...where(stray, 'margin: 2') });
-    expect(one(stray)[0].message).toMatch(/only used by the equivalence procedures/);
+    expect(one(stray)[0].message).toMatch(/only used for an equivalence aim: by the equivalence procedures/);
   });
 
   it('the sensitivity analysis must fit the main procedure', () => {
