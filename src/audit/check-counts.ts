@@ -8,7 +8,7 @@
  *
  * Example: a paired t with "n = 24" and "df = 11" counted the 24 measurements of 12 pairs.
  */
-import type { AuditContext, Collector } from './context.js';
+import { unitNames, type AuditContext, type Collector } from './context.js';
 import { rangeOf, rangeOver, showRange } from './digits.js';
 import type { ReportedNumber } from './types.js';
 
@@ -29,7 +29,7 @@ export function pairsOf(ctx: AuditContext): number | undefined {
 }
 
 /** True when a paired analysis reports n as the number of measurements (twice the pairs). */
-export function countsObservations(ctx: AuditContext): boolean {
+function countsObservations(ctx: AuditContext): boolean {
   const { n, n1, n2, df } = ctx.r;
   if (ctx.usedFamily !== 'paired' || !n) return false;
   if (df && Number.isInteger(df.value) && n.value === 2 * (df.value + 1)) return true;
@@ -118,7 +118,7 @@ export function checkCounts(ctx: AuditContext, out: Collector): void {
   const pooledLike = (ctx.used === 'welch-t' || ctx.used === 'welch-equivalence') && n1 && n2 && df.value === n1.value + n2.value - 2;
   const fewerPairs = ctx.usedFamily === 'paired' && n && Number.isInteger(df.value) && df.value + 1 < n.value;
   out.add('df-inconsistent',
-    `The reported df = ${df.text} does not fit ${ctx.usedLabel}: with the reported counts it should be ${showRange(exp.range)} (${exp.basis}).${pooledLike ? ' The value is the pooled df; the pooled t may have been run instead of Welch.' : ''}${fewerPairs ? ` df = ${df.text} implies ${df.value + 1} pairs: n may count ${ctx.record.answers?.unit ?? 'unit'}s whose pair is incomplete.` : ''}`,
+    `The reported df = ${df.text} does not fit ${ctx.usedLabel}: with the reported counts it should be ${showRange(exp.range)} (${exp.basis}).${pooledLike ? ' The value is the pooled df; the pooled t may have been run instead of Welch.' : ''}${fewerPairs ? ` df = ${df.text} implies ${df.value + 1} pairs: n may count ${unitNames(ctx).many} whose pair is incomplete.` : ''}`,
     `Recompute df from the number of ${ctx.usedFamily === 'paired' ? 'complete pairs' : 'values per group'} actually analysed and check that the stated procedure is the one that was run.`,
     { reportedDf: df.value, expectedLow: exp.range[0], expectedHigh: exp.range[1] });
 }

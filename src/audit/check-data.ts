@@ -5,7 +5,7 @@
  * colleague's procedure and the recommended one.
  */
 import type { TestResult } from '../stats/types.js';
-import type { AuditContext, Collector } from './context.js';
+import { unitNames, type AuditContext, type Collector } from './context.js';
 import { pRangeReported } from './check-pvalue.js';
 import { overlaps, rangeOf, show } from './digits.js';
 import type { PairingAccount } from './pairing.js';
@@ -13,17 +13,17 @@ import type { DataComparison, ReportedNumber } from './types.js';
 
 /** `interval` is the colleague's result whose interval matches the reported one (two-sided when both ends are reported). */
 export function checkData(ctx: AuditContext, out: Collector, acc: PairingAccount, cmp: DataComparison, interval: TestResult | null = cmp.colleague.result): void {
-  const unit = String(ctx.record.answers?.unit ?? 'unit');
+  const { one: unit, many: units } = unitNames(ctx);
   if (acc.duplicates.length > 0) {
     const list = acc.duplicates.slice(0, 5).map((d) => `${d.id} (${d.times} times, lines ${d.lines.join(', ')})`).join('; ');
     out.add('data-duplicate-ids',
       `${acc.duplicates.length} id${acc.duplicates.length === 1 ? ' occurs' : 's occur'} more than once within one condition: ${list}. Each ${unit} must give one value per condition; with repeats it is unclear which value belongs in the pair, and the ${unit} is counted more than once.`,
-      `Find out why the ${unit} was entered twice (a re-measurement, a typing slip, two ${unit}s sharing an id); keep one value per ${unit} and condition, or average the repeats, then re-run.`,
+      `Find out why the ${unit} was entered twice (a re-measurement, a typing slip, two ${units} sharing an id); keep one value per ${unit} and condition, or average the repeats, then re-run.`,
       { duplicates: acc.duplicates.length });
   }
   if (acc.pairs !== undefined && acc.incomplete > 0) {
     out.add('data-unmatched-ids',
-      `${acc.incomplete} ${unit}${acc.incomplete === 1 ? ' has' : 's have'} a value under one condition only${acc.unmatched.length ? ` (${acc.unmatched.slice(0, 8).join(', ')}${acc.unmatched.length > 8 ? ', ...' : ''})` : ''}. A paired analysis drops such incomplete pairs whole; ${acc.pairs} complete pairs remain.`,
+      `${acc.incomplete} ${acc.incomplete === 1 ? `${unit} has` : `${units} have`} a value under one condition only${acc.unmatched.length ? ` (${acc.unmatched.slice(0, 8).join(', ')}${acc.unmatched.length > 8 ? ', ...' : ''})` : ''}. A paired analysis drops such incomplete pairs whole; ${acc.pairs} complete pairs remain.`,
       'Report how many pairs were incomplete and why; if the missing values are not missing by chance (e.g. the worst units dropped out), say how that could bias the result.',
       { incomplete: acc.incomplete, pairs: acc.pairs });
     checkIncompleteKept(ctx, out, acc);

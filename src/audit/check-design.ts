@@ -7,14 +7,14 @@
  * References: Hills and Armitage (1979) for the crossover; Hurlbert (1984) for pseudo-replication;
  * Bland and Altman (1995) on many comparisons on the same units.
  */
-import type { AuditContext, Collector } from './context.js';
+import { unitNames, type AuditContext, type Collector } from './context.js';
 import { BINARY_PROCEDURES, PROCEDURE_LABEL } from './procedure-names.js';
 
 const PAIRED_PROCEDURES = ['paired-t', 'signed-rank', 'paired-equivalence'];
 
 export function checkDesign(ctx: AuditContext, out: Collector): void {
   const { design, r, rec } = ctx;
-  const unit = String(ctx.record.answers?.unit ?? 'unit');
+  const { one: unit, many: units } = unitNames(ctx);
   const recommended = ctx.recommended ? PROCEDURE_LABEL[ctx.recommended] : undefined;
   const instead = recommended ? `Re-run the analysis with the ${recommended}` : 'Re-run the analysis with a procedure for this design';
 
@@ -37,17 +37,17 @@ export function checkDesign(ctx: AuditContext, out: Collector): void {
     const k = r.comparisons ?? 0;
     const inflation = k > 1 ? ` With ${k} tests at ${ctx.alpha} each, the chance of at least one false alarm when nothing differs is up to ${(1 - Math.pow(1 - ctx.alpha, k)).toFixed(2)}.` : '';
     out.add('multiple-pairwise-timepoints',
-      `The ${unit}s were measured at more than two time points or under more than two conditions, but the analysis compares them two at a time.${inflation} Separate pairwise tests also ignore the pattern over time.`,
+      `The ${units} were measured at more than two time points or under more than two conditions, but the analysis compares them two at a time.${inflation} Separate pairwise tests also ignore the pattern over time.`,
       'Analyse all time points together (a repeated-measures or mixed model, or one pre-declared summary per unit such as the slope or the area under the curve), then compare pairs only as pre-planned contrasts with an adjusted level.');
   }
   if (kind === 'clustered' || r.repeatedPerUnit) {
     out.add('pseudo-replication',
-      `Several measurements come from the same ${unit} (or the ${unit}s sit inside clusters), yet they were entered as if each were an independent ${unit}. The standard error is then too small and the p-value too small; n is inflated.`,
-      `Reduce to one value per ${unit} (for instance the ${unit}'s mean) and count ${unit}s, or use a model with a random effect for the ${unit} or cluster.`);
+      `Several measurements come from the same ${unit} (or the ${units} sit inside clusters), yet they were entered as if each were an independent ${unit}. The standard error is then too small and the p-value too small; n is inflated.`,
+      `Reduce to one value per ${unit} (for instance the ${unit}'s mean) and count ${units}, or use a model with a random effect for the ${unit} or cluster.`);
   }
   if (design?.family === 'paired' && fam === 'independent') {
     out.add('independent-test-on-paired',
-      `The study facts describe a paired design (${design.label ?? kind}): each ${unit} contributes a measurement under both conditions. ${ctx.usedLabel} treats the two sets as unrelated, so it ignores the pairing: the standard error is wrong (too large when pair members move together), n counts measurements instead of ${unit}s, and df are too many.`,
+      `The study facts describe a paired design (${design.label ?? kind}): each ${unit} contributes a measurement under both conditions. ${ctx.usedLabel} treats the two sets as unrelated, so it ignores the pairing: the standard error is wrong (too large when pair members move together), n counts measurements instead of ${units}, and df are too many.`,
       `${instead}${instead.endsWith('on the differences') ? '' : ' on the differences'}${ctx.subtraction ? ` (${ctx.subtraction})` : ''}, with n = number of complete pairs${ctx.recommended === 'paired-t' || !ctx.recommended ? ' and df = pairs - 1' : ''}.`);
   }
   if (design?.family === 'independent' && usedPaired) {
@@ -69,12 +69,12 @@ export function checkDesign(ctx: AuditContext, out: Collector): void {
   }
   if ((kind === 'matched-after' && usedPaired) || (r.pairing === 'matched-after' && pairsUsed)) {
     out.add('matched-after',
-      `The ${unit}s were matched after the outcomes were collected. A match made while the outcomes can be seen can follow them, so the pairing may build in the very difference being tested; and ${unit}s left without a match are dropped.`,
+      `The ${units} were matched after the outcomes were collected. A match made while the outcomes can be seen can follow them, so the pairing may build in the very difference being tested; and ${units} left without a match are dropped.`,
       'Report the analysis as independent groups (with the matching variable as a covariate if needed), or state plainly that the matching was done after the fact and show that the result holds without it.');
   }
   if (kind === 'crossover' && ctx.used && PAIRED_PROCEDURES.includes(ctx.used) && r.periodUsed !== true) {
     out.add('crossover-plain-paired',
-      `The ${unit}s received both conditions in two periods with the order recorded (a two-period crossover), but ${ctx.usedLabel} ignores the period. A period effect (learning, wear, season) then inflates the spread of the differences and, with unequal sequence groups, biases the estimate.`,
+      `The ${units} received both conditions in two periods with the order recorded (a two-period crossover), but ${ctx.usedLabel} ignores the period. A period effect (learning, wear, season) then inflates the spread of the differences and, with unequal sequence groups, biases the estimate.`,
       'Use the 2x2 crossover analysis (Hills and Armitage 1979): compare the period-1-minus-period-2 differences between the two sequence groups; it gives the treatment effect with the period effect removed.');
   }
   if (design?.family === 'other' && !['more-than-two', 'clustered', 'arbitrary-pairing'].includes(kind)) {

@@ -113,6 +113,24 @@ export function makeCollector(): Collector {
   };
 }
 
+/** The unit's name from the study facts ('unit' when none given) and its plural, for messages. */
+export function unitNames(ctx: AuditContext): { one: string; many: string } {
+  const one = String(ctx.record.answers?.unit ?? 'unit');
+  return { one, many: pluralOf(one) };
+}
+
+/**
+ * A regular English plural of the unit's last word: "colony" -> "colonies", "batch" -> "batches",
+ * "loaf" -> "loaves", otherwise an added "s". Irregular nouns are out of reach; the common
+ * endings are enough for the units people name.
+ */
+function pluralOf(word: string): string {
+  if (/(s|x|z|ch|sh)$/i.test(word)) return `${word}es`;
+  if (/[^aeiou]y$/i.test(word)) return `${word.slice(0, -1)}ies`;
+  if (/(l|ea|oa|ar)f$/i.test(word)) return `${word.slice(0, -1)}ves`;
+  return `${word}s`;
+}
+
 /** The number as written, for messages: `"0.0430"`. */
 export function q(text: string | undefined): string {
   return text === undefined ? 'n/a' : `${text}`;

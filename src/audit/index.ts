@@ -55,7 +55,7 @@ export function auditRecord(record: AuditRecord, recommendation: Recommendation 
   return result;
 }
 
-export function sortFindings(fs: Finding[]): Finding[] {
+function sortFindings(fs: Finding[]): Finding[] {
   return [...fs].sort((a, b) => RANK[a.severity] - RANK[b.severity] || ORDER.indexOf(a.code) - ORDER.indexOf(b.code));
 }
 

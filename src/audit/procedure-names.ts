@@ -37,7 +37,7 @@ const PATTERNS: Pattern[] = [
   { test: /\b(independent|unpaired|two groups?)\b/, family: 'independent' },
 ];
 
-export function normalizeName(name: string): string {
+function normalizeName(name: string): string {
   return name
     .toLowerCase()
     .replace(/[’']s\b/g, '')

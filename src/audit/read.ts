@@ -24,7 +24,7 @@ import { parseRecord, type ParsedRecord } from './record.js';
 export const AUDIT_SCHEMA_FILE = 'audit-v1.schema.json';
 
 let schemaCache: object | undefined;
-export function auditSchema(): object {
+function auditSchema(): object {
   if (!schemaCache) schemaCache = JSON.parse(readFileSync(join(schemasDir(), AUDIT_SCHEMA_FILE), 'utf8')) as object;
   return schemaCache;
 }

@@ -6,18 +6,10 @@
  */
 import { InputError } from '../errors.js';
 import { listLevels, repeatedIds, twoLevels } from './levels.js';
-import type { OutcomeSpec, PreparedData, Table } from './types.js';
+import type { LayoutOf, OutcomeSpec, PreparedData, Table } from './types.js';
 import { category, toArray, valueReaders } from './values.js';
 
-type Crossover = {
-  layout: 'crossover';
-  id?: string;
-  sequence: string;
-  firstThenSecond?: string;
-  secondThenFirst?: string;
-  period1: string;
-  period2: string;
-};
+type Crossover = LayoutOf<'crossover'>;
 
 export function prepareCrossover(table: Table, m: Crossover, outcome: OutcomeSpec): PreparedData {
   if (m.firstThenSecond === undefined && m.secondThenFirst === undefined) {

@@ -9,11 +9,11 @@
  */
 import { InputError } from '../errors.js';
 import { listLevels, repeatedIds, twoLevels } from './levels.js';
-import type { OutcomeSpec, PreparedData, Table } from './types.js';
+import type { LayoutOf, OutcomeSpec, PreparedData, Table } from './types.js';
 import { category, column, toArray, valueReaders } from './values.js';
 
-type Groups = { layout: 'groups'; group: string; value: string; firstLevel?: string; secondLevel?: string; id?: string };
-type Columns = { layout: 'columns'; first: string; second: string };
+type Groups = LayoutOf<'groups'>;
+type Columns = LayoutOf<'columns'>;
 
 const PSEUDO =
   'in independent groups each unit is measured once; a repeated id means one unit was measured more than once (pseudo-replication), ' +

@@ -7,10 +7,10 @@
  */
 import { InputError } from '../errors.js';
 import { listLevels, repeatedIds, twoLevels } from './levels.js';
-import type { OutcomeSpec, PreparedData, Table } from './types.js';
+import type { LayoutOf, OutcomeSpec, PreparedData, Table } from './types.js';
 import { category, toArray, valueReaders } from './values.js';
 
-type Long = { layout: 'long'; id: string; condition: string; value: string; firstLevel?: string; secondLevel?: string };
+type Long = LayoutOf<'long'>;
 
 export function prepareLong(table: Table, m: Long, outcome: OutcomeSpec): PreparedData {
   const notes: string[] = [];

@@ -6,10 +6,10 @@
  */
 import { InputError } from '../errors.js';
 import { repeatedIds } from './levels.js';
-import type { CategoryColumn, OutcomeSpec, PreparedData, Table } from './types.js';
+import type { CategoryColumn, LayoutOf, OutcomeSpec, PreparedData, Table } from './types.js';
 import { category, column, numberArray, truncate, valueReaders } from './values.js';
 
-type Wide = { layout: 'wide'; first: string; second: string; id?: string; pairBy: 'id' | 'row-order' };
+type Wide = LayoutOf<'wide'>;
 
 export function prepareWide(table: Table, m: Wide, outcome: OutcomeSpec): PreparedData {
   const notes: string[] = [];

@@ -115,6 +115,9 @@ export type LayoutSpec =
       period2: string;
     };
 
+/** One layout of the union, for the module that prepares it: `LayoutOf<'long'>`. */
+export type LayoutOf<K extends LayoutSpec['layout']> = Extract<LayoutSpec, { layout: K }>;
+
 /** The outcome's kind: binary outcomes are read as text and mapped to 0/1. */
 export interface OutcomeSpec {
   binary: boolean;

@@ -63,6 +63,16 @@ export function reading(r: ResultBlock, w: Words): string {
       ? `equivalence shown at the ${level} level (${p}, the larger of the two one-sided p-values): the ${percent(r.confidence)} interval lies inside ${range}`
       : `equivalence not shown at the ${level} level (${p}): the ${percent(r.confidence)} interval reaches beyond ${range}; this is not evidence of a difference either`;
   }
+  if (byInterval(r)) {
+    // A difference procedure beside an equivalence test, or a yes/no outcome with an equivalence
+    // margin: judged by its interval, not its p-value.
+    const ci = r.ci ? `${percent(r.confidence)} interval ${intervalWords(r.ci, w)}` : `${percent(r.confidence)} interval`;
+    const m = r.margin!;
+    const range = `the equivalence range -${fmt(m)} to ${withUnit(m, w)}`;
+    return insideMargin(r)
+      ? `equivalence shown by the interval: the ${ci} lies inside ${range}`
+      : `equivalence not shown by the interval: the ${ci} reaches beyond ${range}`;
+  }
   const up = r.estimate > r.nullValue;
   const claim = (higher: boolean): string => {
     if (r.nullValue !== 0) return `the difference (${w.first} minus ${w.second}) is ${higher ? 'above' : 'below'} ${withUnit(r.nullValue, w)}`;
@@ -82,6 +92,11 @@ export function reading(r: ResultBlock, w: Words): string {
   if (r.alternative === 'two-sided') {
     if (significant) return `the data indicate that ${claim(up)} (${p}, below ${level})`;
     const ci = r.ci ? `; differences from ${intervalWords(r.ci, w)} remain compatible with the data` : '';
+    // With a null value other than zero the test asked whether the difference departs from that
+    // value, not whether the two conditions differ: say so, rather than "no difference".
+    if (r.nullValue !== 0) {
+      return `the data do not show that the difference (${w.first} minus ${w.second}) departs from ${withUnit(r.nullValue, w)} at the ${level} level (${p})${ci}; this is not evidence that it equals ${fmt(r.nullValue)}`;
+    }
     return `the data do not show a difference between ${w.first} and ${w.second} at the ${level} level (${p})${ci}; this is not evidence that they are the same`;
   }
   const wanted = r.alternative === 'greater';
@@ -89,19 +104,38 @@ export function reading(r: ResultBlock, w: Words): string {
   return `the data do not show that ${claim(wanted)} at the ${level} level (${p}, one-sided)`;
 }
 
+/** A result with a margin that is not a TOST procedure: its interval, not its p-value, decides. */
+function byInterval(r: ResultBlock): boolean {
+  return r.margin !== undefined && r.procedure !== 'paired-equivalence' && r.procedure !== 'welch-equivalence';
+}
+
+/** Whether a result judged by its interval against a margin has that interval inside the margin. */
+function insideMargin(r: ResultBlock): boolean {
+  return r.ci !== null && r.margin !== undefined && r.ci[0] > -r.margin && r.ci[1] < r.margin;
+}
+
 /** Whether the sensitivity analysis leads to the same reading as the declared procedure. */
-export function agreement(main: ResultBlock, sens: ResultBlock | null, doubts: boolean): string | null {
+export function agreement(main: ResultBlock, sens: ResultBlock | null, doubts: boolean, w: Words): string | null {
   if (!sens) return null;
   if (!main.available || main.pValue === null || main.estimate === null) return null;
   if (!sens.available || sens.pValue === null || sens.estimate === null) {
     return `The sensitivity analysis (${sens.name}) could not be computed: ${sens.unavailable?.meaning ?? 'see above'}.`;
   }
-  const same = main.pValue < main.alpha === sens.pValue < sens.alpha && Math.sign(main.estimate - main.nullValue) === Math.sign(sens.estimate - sens.nullValue);
+  // The readings agree when both are significant or both are not; two significant two-sided
+  // results must also point the same way. Two non-significant results say the same thing ("not
+  // shown") whatever the signs of their estimates, and a one-sided result's direction is fixed by
+  // the alternative.
+  const judged = byInterval(sens);
+  const mainSig = byInterval(main) ? insideMargin(main) : main.pValue < main.alpha;
+  const sensSig = judged ? insideMargin(sens) : sens.pValue < sens.alpha;
+  const sameWay = Math.sign(main.estimate - main.nullValue) === Math.sign(sens.estimate - sens.nullValue);
+  const same = mainSig === sensSig && (!mainSig || main.alternative !== 'two-sided' || sameWay);
+  const evidence = judged && sens.ci ? `its ${percent(sens.confidence)} interval ${intervalWords(sens.ci, w)}` : pIs(sens.pValue);
   if (same) {
-    return `The sensitivity analysis (${sens.name}) agrees with the declared procedure (${pIs(sens.pValue)})` + (doubts ? '; the conclusion does not hinge on the condition in doubt.' : '.');
+    return `The sensitivity analysis (${sens.name}) agrees with the declared procedure (${evidence})` + (doubts ? '; the conclusion does not hinge on the condition in doubt.' : '.');
   }
   return (
-    `The sensitivity analysis (${sens.name}) does not agree (${pIs(sens.pValue)}: ${sens.reading}). ` +
+    `The sensitivity analysis (${sens.name}) does not agree (${judged ? '' : `${pIs(sens.pValue)}: `}${sens.reading}). ` +
     'The conclusion depends on the conditions of the procedure used: report both results and treat the declared one with caution.'
   );
 }

@@ -11,6 +11,8 @@ export function wordsOf(a: AnalysisReport): Words {
   return { first: a.labels.first, second: a.labels.second, unit: a.outcome.unit, event: a.outcome.event };
 }
 
+/** Equivalence procedures run two one-sided tests; their alternative field stays 'two-sided'. */
+const TOST = new Set(['paired-equivalence', 'welch-equivalence']);
 const SIDES: Record<string, string> = { 'two-sided': 'two-sided', greater: 'one-sided, first greater', less: 'one-sided, first less' };
 
 /** [label, value] rows describing one result. */
@@ -26,7 +28,7 @@ export function resultRows(r: ResultBlock, w: Words): [string, string][] {
   const rows: [string, string][] = [
     ['estimate', `${withUnit(r.estimate!, w)}  (${r.estimateName})`],
     ['interval', r.ci ? `${percent(r.confidence)}: ${intervalWords(r.ci, w)}` : 'none'],
-    ['test', `${r.statisticName} = ${fmt(r.statistic)}${r.df !== null ? ` on ${fmt(r.df, 6)} df` : ''}, ${pIs(r.pValue!)} (${SIDES[r.alternative]}${r.nullValue !== 0 ? `, null value ${fmt(r.nullValue)}` : ''})`],
+    ['test', `${r.statisticName} = ${fmt(r.statistic)}${r.df !== null ? ` on ${fmt(r.df, 6)} df` : ''}, ${pIs(r.pValue!)} (${TOST.has(r.procedure) ? 'two one-sided tests' : SIDES[r.alternative]}${r.nullValue !== 0 ? `, null value ${fmt(r.nullValue)}` : ''})`],
   ];
   if (r.margin !== undefined) rows.push(['margin', `equivalence range -${fmt(r.margin)} to ${withUnit(r.margin, w)}`]);
   if (r.effectSize) {
@@ -39,17 +41,17 @@ export function resultRows(r: ResultBlock, w: Words): [string, string][] {
   return rows;
 }
 
-export function fmtInterval(ci: [number, number]): string {
+function fmtInterval(ci: [number, number]): string {
   return `[${fmt(ci[0])}, ${fmt(ci[1])}]`;
 }
 
-export function countsText(r: ResultBlock): string {
+function countsText(r: ResultBlock): string {
   const n = r.n;
   const parts: string[] = [];
   if (n.pairs !== undefined && n.first === undefined) parts.push(`${n.pairs} ${r.procedure === 'crossover-t' ? 'subjects' : 'pairs'}`);
   if (n.first !== undefined) parts.push(`${n.first} + ${n.second} values`);
-  if (n.zeros) parts.push(`${n.zeros} zero differences`);
-  if (n.ties) parts.push(`${n.ties} tied groups`);
+  if (n.zeros) parts.push(`${n.zeros} zero ${n.zeros === 1 ? 'difference' : 'differences'}`);
+  if (n.ties) parts.push(`${n.ties} tied ${n.ties === 1 ? 'group' : 'groups'}`);
   parts.push(`${n.dropped} dropped`);
   return parts.join(', ');
 }

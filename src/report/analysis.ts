@@ -43,13 +43,14 @@ export function buildAnalysis(spec: AnalysisSpec, prepared: PreparedData, data: 
   let sensitivity: AnalysisReport['sensitivity'] = null;
   if (spec.sensitivity) {
     const input = sensitivityInput(spec.sensitivity.id, prepared.input);
-    sensitivity = { ...runBlock(spec.sensitivity.id, input, spec, prepared.counts.dropped, words), why: spec.sensitivity.why };
+    const sensSpec = isEquivalence(spec.procedure) && !isEquivalence(spec.sensitivity.id) ? byIntervalSpec(spec) : spec;
+    sensitivity = { ...runBlock(spec.sensitivity.id, input, sensSpec, prepared.counts.dropped, words), why: spec.sensitivity.why };
   }
 
   const diag = diagnose(spec, prepared.input, labels, main, prepared.sequences);
   const flags = diagnosticFlags(spec.procedure, diag.diagnostics, paired);
   const doubts = flags.some((f) => f.severity === 'contradiction');
-  const agree = agreement(main, sensitivity, doubts);
+  const agree = agreement(main, sensitivity, doubts, words);
   const flagSummary = summarizeFlags(flags, main, sensitivity);
   const scope = spec.scope?.text ?? QUICK_SCOPE;
   const conclusion = [
@@ -87,11 +88,30 @@ export function buildAnalysis(spec: AnalysisSpec, prepared: PreparedData, data: 
   };
 }
 
-function runBlock(id: ProcedureId, input: ProcedureInput, spec: AnalysisSpec, dropped: number, words: Words): ResultBlock {
+function isEquivalence(id: ProcedureId): boolean {
+  return id === 'paired-equivalence' || id === 'welch-equivalence';
+}
+
+/**
+ * A difference procedure declared as the sensitivity analysis of an equivalence test (the rule
+ * base's "90% Hodges-Lehmann interval checked against the same margin") is run two-sided at the
+ * equivalence test's interval level, 1 - 2 alpha, and judged by whether that interval lies inside
+ * the margin: its p-value answers another question (Schuirmann 1987 on the interval form of TOST).
+ */
+type BlockSpec = AnalysisSpec & { intervalMargin?: boolean };
+
+function byIntervalSpec(spec: AnalysisSpec): BlockSpec {
+  const level = Math.round((1 - 2 * (1 - spec.options.confidence)) * 1e12) / 1e12;
+  return { ...spec, options: { ...spec.options, alternative: 'two-sided', confidence: level, nullValue: 0 }, intervalMargin: true };
+}
+
+function runBlock(id: ProcedureId, input: ProcedureInput, spec: BlockSpec, dropped: number, words: Words): ResultBlock {
   const o = spec.options;
-  const equivalence = id === 'paired-equivalence' || id === 'welch-equivalence';
+  const equivalence = isEquivalence(id);
   const options = { ...o, margin: equivalence ? o.margin : undefined };
-  const base = { procedure: id, name: procedureName(id), alternative: o.alternative, nullValue: o.nullValue, ...(equivalence && o.margin !== undefined ? { margin: o.margin } : {}) };
+  // A margin with a yes/no outcome (plan schema) is an equivalence aim judged by the interval.
+  const judged = (equivalence || spec.intervalMargin || id === 'mcnemar' || id === 'two-proportions') && o.margin !== undefined;
+  const base = { procedure: id, name: procedureName(id), alternative: o.alternative, nullValue: o.nullValue, ...(judged ? { margin: o.margin } : {}) };
   let r: TestResult;
   try {
     r = runProcedure(id, input, options);
@@ -160,7 +180,7 @@ function inputCounts(input: ProcedureInput): ResultBlock['n'] {
  * differences (period 1 minus period 2, halved) between the two sequences (Koch 1972): the shift
  * between the sequences is then the effect of first minus second, as in the crossover t.
  */
-export function sensitivityInput(id: ProcedureId, input: ProcedureInput): ProcedureInput {
+function sensitivityInput(id: ProcedureId, input: ProcedureInput): ProcedureInput {
   if (input.kind !== 'crossover' || procedureDesign(id) === 'crossover') return input;
   const half = (s: { period1: number[]; period2: number[] }): number[] => s.period1.map((x, i) => (x - s.period2[i]) / 2);
   return { kind: 'independent', first: half(input.firstThenSecond), second: half(input.secondThenFirst) };

@@ -12,6 +12,14 @@ describe('design and procedure', () => {
     expect(f.severity).toBe('error');
     expect(f.fix).toMatch(/paired t on the differences.*new rack minus old rack.*pairs - 1/);
   });
+  it('names the unit in the plural by the usual English endings (loaf -> loaves, colony -> colonies, batch -> batches)', () => {
+    const message = (unit: string): string =>
+      audit(rec('procedure: welch-t', `study:\n  answers:\n    unit: ${unit}\n`), paired).findings.find((x) => x.code === 'independent-test-on-paired')!.message;
+    expect(message('loaf')).toContain('instead of loaves');
+    expect(message('colony')).toContain('instead of colonies');
+    expect(message('dye batch')).toContain('instead of dye batches');
+    expect(message('test weld')).toContain('instead of test welds');
+  });
   it('a paired test on independent groups is an error', () => {
     expect(codes(audit(rec('procedure: paired t-test'), independent))).toContain('paired-test-on-unmatched');
   });

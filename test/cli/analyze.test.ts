@@ -183,6 +183,26 @@ describe('tandem analyze with a plan', () => {
     expect(doc!.estimate).toBeCloseTo(mean(kilnDiffs()), 10);
   });
 
+  it("reads an equivalence plan's confidence as the interval level (0.90: each one-sided test at 5%), as the plan schema says", async () => {
+    const dir = mkdtempSync(join(tmpdir(), 'tandem-analyze-eq-'));
+    copyFileSync(join(FIX, 'kiln-tiles-wide.csv'), join(dir, 'kiln-tiles-wide.csv'));
+    const plan = readFileSync(join(FIX, 'kiln-tiles.plan.yaml'), 'utf8').replace(
+      /procedure:\n  id: paired-t\n  alternative: two-sided\n  confidence: 0.95\n  nullValue: 0\n/,
+      'procedure:\n  id: paired-equivalence\n  alternative: two-sided\n  confidence: 0.9\n  nullValue: 0\n  margin: 50\n',
+    );
+    expect(plan).toContain('paired-equivalence');
+    writeFileSync(join(dir, 'eq.plan.yaml'), plan);
+    const { code, doc } = await json(['eq.plan.yaml', '--data', 'kiln-tiles-wide.csv'], dir);
+    expect(code).toBe(0);
+    expect(doc!.procedure).toBe('paired-equivalence');
+    expect(doc!.confidence).toBeCloseTo(0.9, 12);
+    expect(doc!.details.alpha).toBeCloseTo(0.05, 12);
+    expect(doc!.reading).toMatch(/at the 5% level/);
+    // The declared signed-rank is judged by its interval at the same 90% level against the margin.
+    expect(doc!.sensitivity.confidence).toBeCloseTo(0.9, 12);
+    expect(doc!.sensitivity.reading).toMatch(/equivalence (not )?shown by the interval: the 90% interval/);
+  });
+
   it('refuses quick-mode options beside a plan', async () => {
     const r = await analyze(['kiln-tiles.plan.yaml', '--data', 'kiln-tiles-wide.csv', '--procedure', 'welch-t']);
     expect(r.code).toBe(2);

@@ -9,7 +9,7 @@ import { buildAnalysis } from '../../src/report/analysis.js';
 import { analysisJson } from '../../src/report/analysis-json.js';
 import { analysisMarkdown } from '../../src/report/analysis-markdown.js';
 import { analysisText } from '../../src/report/analysis-text.js';
-import { intervalWords, reading } from '../../src/report/analysis-conclusion.js';
+import { agreement, intervalWords, reading } from '../../src/report/analysis-conclusion.js';
 import type { AnalysisSpec, DataInfo, ResultBlock } from '../../src/report/analysis-types.js';
 import { plotStrips } from '../../src/report/plot.js';
 import { makeStyle } from '../../src/report/style.js';
@@ -117,6 +117,54 @@ describe('the words of the result', () => {
     expect(reading(block({ alternative: 'greater', pValue: 0.2, ci: [-0.1, Infinity] }), w)).toMatch(/do not show that glaze A gives higher values .* one-sided/);
     expect(reading(block({ procedure: 'rank-sum' }), w)).toMatch(/stochastic superiority/);
     expect(reading(block({ nullValue: 0.5 }), w)).toMatch(/the difference \(glaze A minus glaze B\) is above 0.5 um/);
+  });
+
+  it('with a null value other than zero, a non-significant result is about that value, not about "no difference"', () => {
+    const ns = reading(block({ nullValue: 0.5, pValue: 0.3, ci: [-0.2, 1.4] }), w);
+    expect(ns).toMatch(/do not show that the difference \(glaze A minus glaze B\) departs from 0.5 um .* not evidence that it equals 0.5/);
+    expect(ns).not.toMatch(/a difference between/);
+  });
+
+  it('two non-significant results agree whatever the signs of their estimates; two significant ones must point the same way', () => {
+    const main = block({ pValue: 0.4, estimate: 0.2, ci: [-0.5, 0.9] });
+    const sens = block({ procedure: 'signed-rank', name: 'signed-rank', pValue: 0.3, estimate: -0.1, ci: [-0.6, 0.8] });
+    expect(agreement(main, sens, false, w)).toMatch(/agrees/);
+    expect(agreement(block({}), block({ procedure: 'signed-rank', name: 'signed-rank', estimate: -1 }), false, w)).toMatch(/does not agree/);
+    expect(agreement(block({}), block({ procedure: 'signed-rank', name: 'signed-rank', pValue: 0.2 }), false, w)).toMatch(/does not agree/);
+  });
+
+  it('a difference procedure beside an equivalence test is judged by its interval against the margin', () => {
+    const eq = block({ procedure: 'paired-equivalence', margin: 3, confidence: 0.9, pValue: 0.01 });
+    const inside = block({ procedure: 'signed-rank', name: 'signed-rank', margin: 3, confidence: 0.9, alpha: 0.1, pValue: 0.6, ci: [-1, 2] });
+    expect(reading(inside, w)).toMatch(/equivalence shown by the interval: the 90% interval -1 to 2 um lies inside the equivalence range -3 to 3 um/);
+    expect(agreement(eq, inside, false, w)).toMatch(/agrees .*its 90% interval -1 to 2 um/);
+    const beyond = { ...inside, ci: [-1, 3.5] as [number, number] };
+    expect(reading(beyond, w)).toMatch(/equivalence not shown by the interval/);
+    expect(agreement(eq, beyond, false, w)).toMatch(/does not agree/);
+  });
+
+  it('runs the sensitivity analysis of an equivalence test at the interval level 1 - 2 alpha, two-sided', () => {
+    const second = [20, 21, 19, 22, 20.5, 21.5, 19.5, 20.2, 21.2, 19.8, 20.7, 21.7];
+    const first = second.map((x, i) => x + [0.4, -0.6, 0.5, -0.3, 0.7, -0.5, 0.45, -0.55, 0.6, -0.4, 0.5, -0.52][i]);
+    const a = buildAnalysis(spec({ procedure: 'paired-equivalence', options: { alternative: 'two-sided', confidence: 0.95, nullValue: 0, margin: 2 } }), paired(first, second), DATA);
+    expect(a.main.confidence).toBeCloseTo(0.9, 12);
+    expect(a.sensitivity!.confidence).toBeCloseTo(0.9, 12);
+    expect(a.sensitivity!.margin).toBe(2);
+    expect(a.sensitivity!.reading).toMatch(/equivalence shown by the interval/);
+    expect(a.agreement).toMatch(/agrees/);
+  });
+
+  it('a yes/no outcome with an equivalence margin (plan schema) is judged by its interval, not its p-value', () => {
+    // 40 pairs, 2 discordant each way: the difference in proportions is 0 with a narrow interval.
+    const first = Array.from({ length: 40 }, (_, i) => (i < 20 || i === 20 || i === 21 ? 1 : 0));
+    const second = Array.from({ length: 40 }, (_, i) => (i < 20 || i === 22 || i === 23 ? 1 : 0));
+    const a = buildAnalysis(
+      spec({ procedure: 'mcnemar', sensitivity: null, outcome: { binary: true }, options: { alternative: 'two-sided', confidence: 0.9, nullValue: 0, margin: 0.3 } }),
+      paired(first, second),
+      DATA,
+    );
+    expect(a.main.margin).toBe(0.3);
+    expect(a.main.reading).toMatch(/^equivalence shown by the interval: the 90% interval .* lies inside the equivalence range -0.3 to 0.3$/);
   });
 
   it('reads an equivalence result against its margin', () => {

@@ -61,7 +61,8 @@ Options:
   --data FILE            the CSV file (header row; comma, semicolon or tab; UTF-8)
   --procedure ID         ${PROCEDURE_IDS.join(', ')}
   --alternative SIDE     two-sided (default), greater or less, for first minus second
-  --confidence LEVEL     interval level in (0, 1), default 0.95
+  --confidence LEVEL     interval level in (0, 1), default 0.95 (equivalence: 0.90, each
+                         one-sided test at half of 1 - LEVEL)
   --null VALUE           difference under the null hypothesis, default 0
   --margin M             equivalence margin (paired-equivalence, welch-equivalence)
   --sensitivity ID       a sensitivity analysis to run beside the procedure (quick mode)
@@ -126,6 +127,17 @@ export default async function analyze(argv: string[], io: IO): Promise<number> {
   return EXIT.ok;
 }
 
+/**
+ * The procedures' confidence option from the interval level the user gives. A plan's
+ * procedure.confidence and --confidence are the interval's level (plan schema); the two
+ * one-sided tests of an equivalence procedure take 1 - alpha and report the 1 - 2 alpha interval
+ * (Schuirmann 1987), so an interval level of 0.90 means each test at 5%: 1 - (1 - 0.90) / 2.
+ */
+function testConfidence(id: ProcedureId, intervalLevel: number): number {
+  if (!PROCEDURES[id].equivalence) return intervalLevel;
+  return Math.round((1 - (1 - intervalLevel) / 2) * 1e12) / 1e12;
+}
+
 /** The kind of input a procedure reads (the same as the stats registry's, without loading it). */
 function designOf(id: ProcedureId): ProcedureInput['kind'] {
   return id === 'crossover-t' ? 'crossover' : PROCEDURES[id].family;
@@ -178,7 +190,7 @@ async function fromPlan(p: Parsed, path: string, shown: string): Promise<Job> {
     procedure: id,
     options: {
       alternative: plan.procedure.alternative,
-      confidence: plan.procedure.confidence,
+      confidence: testConfidence(id, plan.procedure.confidence),
       nullValue: plan.procedure.nullValue,
       ...(plan.procedure.margin !== undefined ? { margin: plan.procedure.margin } : {}),
     },
@@ -199,10 +211,11 @@ function fromQuick(p: Parsed, dataArg: string): Job {
   const id = choiceOpt(p, 'procedure', PROCEDURE_IDS);
   if (id === undefined) throw new InputError(`quick mode needs --procedure ID (one of ${PROCEDURE_IDS.join(', ')}), or give a plan file`);
   const alternative = choiceOpt(p, 'alternative', ['two-sided', 'greater', 'less'] as const) ?? 'two-sided';
-  const confidence = numberOpt(p, 'confidence', { min: 0, max: 1, openMin: true, openMax: true }) ?? 0.95;
+  const facts = PROCEDURES[id];
+  const level = numberOpt(p, 'confidence', { min: 0, max: 1, openMin: true, openMax: true }) ?? (facts.equivalence ? 0.9 : 0.95);
+  const confidence = testConfidence(id, level);
   const nullValue = numberOpt(p, 'null') ?? 0;
   const margin = numberOpt(p, 'margin', { min: 0, openMin: true });
-  const facts = PROCEDURES[id];
   if (facts.equivalence && margin === undefined) {
     throw new InputError(`${id} needs --margin M: differences (first minus second) within -M to +M count as practically equivalent; choose M before looking at the data`);
   }
