@@ -13,6 +13,12 @@ describe('tandem rules', () => {
     expect(io.out()).toContain('rules check: OK');
   });
 
+  test('--rules DIR (the name advise and audit use) works like --dir DIR', async () => {
+    const io = memoryIO();
+    expect(await run(['rules', 'check', '--rules', writeRules()], io)).toBe(0);
+    expect(io.out()).toMatch(/staves\s+10/);
+  });
+
   test('check reports problems with file:line:col and a caret, and exits 1', async () => {
     const dir = writeRules({ 'designs.yaml': TINY['designs.yaml'].replace('{ fact: layout, equals: same }', '{ fact: layout, resembles: same }') });
     const io = memoryIO();

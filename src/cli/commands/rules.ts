@@ -30,14 +30,16 @@ one difference statement, one hypotheses entry and one scope entry. Rules that n
 questions that are never asked are reported too.
 
 Options:
-  --dir DIR      a rule directory other than the bundled one
+  --dir DIR      a rule directory other than the bundled one (--rules DIR, as in advise and
+                 audit, is the same)
   --questions    (list) also show the questions, their ids and choice values
 
 Exit codes: 0 clean, 1 problems found, 2 the directory cannot be read or a bad option.
 `;
 
 export default async function rules(argv: string[], io: IO): Promise<number> {
-  const parsed = parseOptions(argv, { dir: { type: 'string' }, questions: { type: 'boolean' } }, 'rules');
+  // --rules is the name advise and audit use for the same folder; both are accepted here.
+  const parsed = parseOptions(argv, { dir: { type: 'string' }, rules: { type: 'string' }, questions: { type: 'boolean' } }, 'rules');
   if (parsed.values.help) {
     io.stdout.write(HELP);
     return EXIT.ok;
@@ -47,7 +49,7 @@ export default async function rules(argv: string[], io: IO): Promise<number> {
     throw new InputError(sub === undefined ? "rules needs a subcommand: 'rules check' or 'rules list'" : `unknown rules subcommand '${sub}' (allowed: check, list)`);
   }
   if (extra.length) throw new InputError(`rules ${sub} takes no file arguments (got '${extra.join(' ')}'); use --dir DIR for another rule directory`);
-  const dirOpt = stringOpt(parsed, 'dir');
+  const dirOpt = stringOpt(parsed, 'dir') ?? stringOpt(parsed, 'rules');
   const dir = dirOpt === undefined ? rulesDir() : resolve(io.cwd, dirOpt);
   if (sub === 'list') return list(loadRuleBase(dir), boolOpt(parsed, 'questions'), io);
   return check(dir, io);
