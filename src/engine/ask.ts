@@ -8,10 +8,12 @@
 import type { AnswerValue, Answers, Question } from './types.js';
 import type { RuleBase } from './model.js';
 import { walkAnswers } from './facts.js';
+import { questionAsShown } from './templates.js';
 
 /** The next question that matters given the answers, or null when none is left. */
 export function nextQuestion(rb: RuleBase, answers: Answers): Question | null {
-  return walkAnswers(rb, answers, true).next;
+  const q = walkAnswers(rb, answers, true).next;
+  return q && questionAsShown(q, answers);
 }
 
 /** The questions asked on the path the answers determine, in order (answered or not). */

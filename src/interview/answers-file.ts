@@ -23,6 +23,7 @@ import { readFileSync } from 'node:fs';
 import { dirname, isAbsolute, join, relative, resolve, sep } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { Document, isScalar, type Pair, type Scalar, type YAMLMap } from 'yaml';
+import { questionAsShown } from '../engine/templates.js';
 import type { Answers, Question, RuleBaseView } from '../engine/types.js';
 import { InputError } from '../errors.js';
 import { writeFileAtomic } from '../fs/atomic.js';
@@ -161,7 +162,8 @@ export function answersToText(answers: Answers, rb: RuleBaseView, opts: AnswersT
   ].join('\n');
   const map = doc.get('answers', true) as YAMLMap<Scalar, Scalar> | undefined;
   ((map?.items ?? []) as Pair<Scalar, Scalar>[]).forEach((pair, i) => {
-    const q = byId.get(String(pair.key.value)) as Question;
+    // Texts that name earlier answers ("{first_label|the first condition}") read with these answers.
+    const q = questionAsShown(byId.get(String(pair.key.value)) as Question, answers);
     pair.key.commentBefore = commentFor(q);
     pair.key.spaceBefore = i > 0; // a blank line between answers
     if (q.type === 'choice' && isScalar(pair.value)) {

@@ -10,7 +10,7 @@ import { PROCEDURE_IDS, type ProcedureId } from '../stats/types.js';
 import type { Condition, DerivedDef, DesignDef, Pos, QuestionDef, RuleBase } from '../engine/model.js';
 import { PROCEDURE_PLACEHOLDERS, STAGE_FACTS } from '../engine/model.js';
 import { factsOf } from '../engine/conditions.js';
-import { placeholders } from '../engine/templates.js';
+import { PLACEHOLDER, placeholders } from '../engine/templates.js';
 import { parseCondition, posAt, type FactInfo, type ParseContext } from './conditions.js';
 import { buildItems, type Raw, type Item } from './items.js';
 
@@ -164,18 +164,30 @@ function checkGuardOrder(rb: RuleBase, problems: Problem[]): void {
 /** Placeholders in texts must name a question, a derived fact, a stage fact or param/param_words. */
 function checkPlaceholders(rb: RuleBase, files: ParsedFile[], problems: Problem[]): void {
   const known = new Set<string>([...rb.questions.map((q) => q.id), ...rb.derived.map((d) => d.id), ...Object.keys(STAGE_FACTS), ...PROCEDURE_PLACEHOLDERS]);
+  const order = new Map(rb.questions.map((q, i) => [q.id, i]));
+  // A question's text may name an answer given before it, with a default for when it is blank or
+  // not yet known ("{first_label|the first condition}"); nothing else.
+  const questionAt = (path: (string | number)[]): number | undefined => (path[0] === 'questions' && typeof path[1] === 'number' ? path[1] : undefined);
+  const fitsQuestion = (text: string, name: string, path: (string | number)[], f: ParsedFile): boolean => {
+    const i = questionAt(path);
+    const raw = i === undefined ? undefined : (f.value.questions as { id?: unknown }[] | undefined)?.[i];
+    const own = raw && typeof raw.id === 'string' ? order.get(raw.id) : undefined;
+    const ref = order.get(name);
+    const withDefault = [...text.matchAll(PLACEHOLDER)].every((m) => m[1] !== name || m[2] !== undefined);
+    return own !== undefined && ref !== undefined && ref < own && withDefault;
+  };
   const walk = (v: unknown, path: (string | number)[], f: ParsedFile, inQuestion: boolean): void => {
     if (typeof v === 'string') {
       for (const name of placeholders(v)) {
-        if (inQuestion || !known.has(name)) {
+        if (inQuestion ? !fitsQuestion(v, name, path, f) : !known.has(name)) {
           const p = posAt(f.loaded, path);
           problems.push({
             code: 'dangling-ref',
             file: p.file,
             line: p.line,
             col: p.col,
-            message: inQuestion ? `placeholder '{${name}}' in a question: questions are shown as written` : `unknown placeholder '{${name}}'`,
-            hint: inQuestion ? 'write the text without braces' : 'a placeholder names a question id, a derived fact, design_family, design_kind, procedure, fallback, param or param_words',
+            message: inQuestion ? `placeholder '{${name}}' in a question must name an earlier question and give a default` : `unknown placeholder '{${name}}'`,
+            hint: inQuestion ? 'e.g. {first_label|the first condition}, where first_label is asked before this question' : 'a placeholder names a question id, a derived fact, design_family, design_kind, procedure, fallback, param or param_words',
           });
         }
       }

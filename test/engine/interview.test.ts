@@ -31,6 +31,23 @@ const hops = {
   expected_shape: 'symmetric', n_first: 20, n_second: 20, direction: 'any-difference', pooled_requested: 'no', people_or_safety: 'none',
 };
 
+describe('nextQuestion (texts that name earlier answers)', () => {
+  test('the direction choices name the two conditions once they are known, and read generically before', () => {
+    const upTo = { ...hops } as Answers;
+    delete upTo.direction;
+    delete upTo.pooled_requested;
+    delete upTo.people_or_safety;
+    const q = nextQuestion(rb, upTo);
+    expect(q?.id).toBe('direction');
+    const labels = Object.fromEntries((q?.choices ?? []).map((c) => [c.value, c.label]));
+    expect(labels['first-higher']).toBe('drip line gives higher values');
+    expect(labels['second-higher']).toBe('sprinkler gives higher values');
+    expect(labels.equivalence).toBe('drip line and sprinkler are equivalent within a margin');
+    const blank = nextQuestion(rb, { ...upTo, first_label: '', second_label: '' });
+    expect(blank?.choices?.find((c) => c.value === 'first-higher')?.label).toBe('the first condition gives higher values');
+  });
+});
+
 describe('nextQuestion (guards)', () => {
   test('the tiny rule base asks the number question only for the same-barrel layout', () => {
     expect(nextQuestion(tiny, {})?.id).toBe('unit');

@@ -125,6 +125,17 @@ describe('loading rule files', () => {
     expect(p.line).toBe(lineOf(text, 'Only {barrels}'));
   });
 
+  test('a question may name only an earlier answer in its text, and only with a default', () => {
+    const ok = TINY['questions.yaml'].replace('text: Same barrel or different barrels?', 'text: "Were {first_label|the first} and {second_label|the second} on the same barrel?"');
+    expect(problemsOf({ 'questions.yaml': ok })).toEqual([]);
+    const later = TINY['questions.yaml'].replace('text: Same barrel or different barrels?', 'text: "Same barrel, for {direction|the aim}?"');
+    const p = only(problemsOf({ 'questions.yaml': later }), 'dangling-ref');
+    expect(p.message).toContain("placeholder '{direction}' in a question must name an earlier question and give a default");
+    expect(p.line).toBe(lineOf(later, 'Same barrel, for'));
+    const noDefault = TINY['questions.yaml'].replace('text: Same barrel or different barrels?', 'text: "Same barrel for {first_label}?"');
+    expect(only(problemsOf({ 'questions.yaml': noDefault }), 'dangling-ref').message).toContain("'{first_label}'");
+  });
+
   test('an unknown procedure id in the catalogue is reported with the allowed ids', () => {
     const text = TINY['procedures.yaml'].replace('  - id: welch-t\n', '  - id: welsh-t\n');
     const ps = problemsOf({ 'procedures.yaml': text });

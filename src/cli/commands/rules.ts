@@ -16,6 +16,7 @@ import { makeStyle, textTable } from '../../report/style.js';
 import { rulesDir } from '../../paths.js';
 import { checkRuleBase, loadRuleBase, readRuleBase } from '../../engine/index.js';
 import type { RuleBase } from '../../engine/model.js';
+import { questionAsShown } from '../../engine/templates.js';
 
 const HELP = `Usage:
   tandem rules check [--dir DIR]               validate the rule base and prove it complete
@@ -104,7 +105,7 @@ function list(rb: RuleBase, withQuestions: boolean, io: IO): number {
     io.stdout.write(`${style.bold('Questions')} (in asking order; some are asked only when earlier answers make them matter)\n`);
     for (const q of rb.questions) {
       const kind = q.type === 'choice' ? (q.choices ?? []).map((c) => c.value).join(' | ') : q.type + (q.optional ? ', optional' : '');
-      io.stdout.write(`  ${style.accent(q.id)}  ${q.text}\n      ${style.dim(kind)}${q.guard ? style.dim('  (conditional)') : ''}\n`);
+      io.stdout.write(`  ${style.accent(q.id)}  ${questionAsShown(q, {}).text}\n      ${style.dim(kind)}${q.guard ? style.dim('  (conditional)') : ''}\n`);
     }
   } else {
     io.stdout.write(style.dim(`${rb.questions.length} questions; add --questions to list them\n`));
