@@ -1,18 +1,20 @@
 /**
  * The one typed door to distribution functions. jstat is imported here and nowhere else, and only
- * for what was measured sound (../shared/DEPENDENCIES.md); the rest comes from @stdlib packages
- * (measured at relative error below 1e-13 for the t and normal CDFs) or from special functions.
+ * for what was measured sound (../shared/DEPENDENCIES.md): starting values for the t and normal
+ * quantiles. The CDFs come from the special functions of src/stats/special.ts (published
+ * algorithms in one small file); where those do not converge (very large shape parameters) the
+ * @stdlib packages, measured at relative error below 1e-13, take over.
  *
  * Every tail is computed directly: `tSf(t, df)` is `tCdf(-t, df)`, never `1 - tCdf(t, df)`, so a
  * p-value of 1e-12 keeps its digits.
  */
 import { createRequire } from 'node:module';
 import jStat from 'jstat';
+import { betaRegularized, gammaln as specialGammaln, gammaRegularized } from './special.js';
 
 /*
- * The @stdlib packages are CommonJS spread over hundreds of small files. Loaded through the ESM
- * loader they cost about twice as long as through require (measured: about 200 ms against 100 ms
- * here), and not every command needs every function, so each is required on first use.
+ * The @stdlib packages are CommonJS spread over hundreds of small files (about 0.2 s to load), so
+ * they are the fallback only, each required on first use.
  */
 const require = createRequire(import.meta.url);
 function lazy<T>(id: string): () => T {
@@ -20,18 +22,19 @@ function lazy<T>(id: string): () => T {
   return () => (f ??= require(id) as T);
 }
 const stdlibTCdf = lazy<typeof import('@stdlib/stats-base-dists-t-cdf')>('@stdlib/stats-base-dists-t-cdf');
-const stdlibNormalCdf = lazy<typeof import('@stdlib/stats-base-dists-normal-cdf')>('@stdlib/stats-base-dists-normal-cdf');
-const stdlibNormalQuantile = lazy<typeof import('@stdlib/stats-base-dists-normal-quantile')>('@stdlib/stats-base-dists-normal-quantile');
 const stdlibBetainc = lazy<typeof import('@stdlib/math-base-special-betainc')>('@stdlib/math-base-special-betainc');
 const stdlibGammainc = lazy<typeof import('@stdlib/math-base-special-gammainc')>('@stdlib/math-base-special-gammainc');
-const stdlibGammaln = lazy<typeof import('@stdlib/math-base-special-gammaln')>('@stdlib/math-base-special-gammaln');
 
 /** Beyond this many degrees of freedom the t distribution is taken as the standard normal. */
 const T_AS_NORMAL_DF = 1e12;
 
+/** P(Z <= x): Phi(x) = Q(1/2, x^2/2) / 2 for x < 0 (Abramowitz and Stegun 26.2.30), each tail direct. */
 export function normalCdf(x: number): number {
   if (Number.isNaN(x)) return NaN;
-  return stdlibNormalCdf()(x, 0, 1);
+  if (x === -Infinity) return 0;
+  if (x === Infinity) return 1;
+  const half = 0.5 * gammaRegularized(0.5 * x * x, 0.5, true);
+  return x < 0 ? half : 1 - half;
 }
 
 /** Upper tail P(Z > x), exact in the far tail. */
@@ -39,11 +42,31 @@ export function normalSf(x: number): number {
   return normalCdf(-x);
 }
 
+/**
+ * The normal quantile: jstat's `normal.inv` (sound for p in [1e-10, 1 - 1e-10]) or, beyond, the
+ * tail asymptote as a start, then Newton steps on the accurate CDF in the lower tail.
+ */
 export function normalQuantile(p: number): number {
   if (!(p >= 0 && p <= 1)) return NaN;
   if (p === 0) return -Infinity;
   if (p === 1) return Infinity;
-  return stdlibNormalQuantile()(p, 0, 1);
+  if (p === 0.5) return 0;
+  const lower = p < 0.5;
+  const q = lower ? p : 1 - p;
+  let x: number;
+  if (q >= 1e-10) x = jStat.normal.inv(q, 0, 1);
+  else {
+    const l = -2 * Math.log(q);
+    x = -Math.sqrt(l - Math.log(l) - Math.log(2 * Math.PI));
+  }
+  for (let i = 0; i < 12; i++) {
+    const d = normalPdf(x);
+    if (!(d > 0)) break;
+    const step = (normalCdf(x) - q) / d;
+    x -= step;
+    if (Math.abs(step) <= 1e-15 * Math.max(1, Math.abs(x))) break;
+  }
+  return lower ? x : -x;
 }
 
 export function normalPdf(x: number): number {
@@ -56,7 +79,12 @@ export function tCdf(x: number, df: number): number {
   if (x === Infinity) return 1;
   if (x === -Infinity) return 0;
   if (df >= T_AS_NORMAL_DF) return normalCdf(x);
-  return stdlibTCdf()(x, df);
+  // P(T <= -|x|) = I_z(df/2, 1/2) / 2 with z = df/(df + x^2) (Abramowitz and Stegun 26.7.1);
+  // 1 - z = x^2/(df + x^2) is passed exactly.
+  const x2 = x * x;
+  const tail = 0.5 * betaRegularized(df / (df + x2), df / 2, 0.5, false, x2 / (df + x2));
+  if (Number.isNaN(tail)) return stdlibTCdf()(x, df);
+  return x < 0 ? tail : 1 - tail;
 }
 
 /** Upper tail P(T > x). */
@@ -100,18 +128,20 @@ export function tQuantile(p: number, df: number): number {
 export function chisqSf(x: number, k: number): number {
   if (Number.isNaN(x) || !(k > 0)) return NaN;
   if (x <= 0) return 1;
-  return stdlibGammainc()(x / 2, k / 2, true, true);
+  const q = gammaRegularized(x / 2, k / 2, true);
+  return Number.isNaN(q) ? stdlibGammainc()(x / 2, k / 2, true, true) : q;
 }
 
 /** Regularized incomplete beta I_x(a, b), or its complement with `upper`. */
 export function betainc(x: number, a: number, b: number, upper = false): number {
   if (x <= 0) return upper ? 1 : 0;
   if (x >= 1) return upper ? 0 : 1;
-  return stdlibBetainc()(x, a, b, true, upper);
+  const v = betaRegularized(x, a, b, upper);
+  return Number.isNaN(v) ? stdlibBetainc()(x, a, b, true, upper) : v;
 }
 
 export function gammaln(x: number): number {
-  return stdlibGammaln()(x);
+  return specialGammaln(x);
 }
 
 /** P(X <= k) for X ~ Binomial(n, p), through the incomplete beta (no rounding, no summation). */
