@@ -3,7 +3,8 @@
  * integrated directly over the chi distribution of the denominator, and the log-space helpers it
  * shares with src/stats/noncentral-t.ts. Split from that file to keep each part readable.
  */
-import { gammaln, normalCdf } from './distributions.js';
+import { normalCdf } from './distributions.js';
+import { stirlingCorrection } from './special.js';
 
 const LN_SQRT_2PI = 0.5 * Math.log(2 * Math.PI);
 
@@ -76,30 +77,6 @@ export function logScaledChiDensity(s: number, df: number, logS = Math.log(s)): 
   const e = s - 1;
   const core = Math.abs(e) < 0.5 ? Math.log1p(e) - e - 0.5 * e * e : logS - 0.5 * (s * s - 1);
   return Math.log(2) + 0.5 * Math.log(x) - LN_SQRT_2PI - stirlingCorrection(x) + df * core - logS;
-}
-
-/**
- * log B(a, b). For a, b >= 10 Stirling's series is applied to each gamma and the large terms are
- * combined before rounding:
- *   log B = log(2 pi)/2 + (a - 1/2) log(a/(a+b)) + (b - 1/2) log(b/(a+b)) - log(a+b)/2
- *           + c(a) + c(b) - c(a+b),
- * which keeps about 15 digits where lgamma(a) + lgamma(b) - lgamma(a+b) loses four or five
- * (the three lgammas are near 4e4 when b = 5000).
- */
-export function logBeta(a: number, b: number): number {
-  if (a < 10 || b < 10) return gammaln(a) + gammaln(b) - gammaln(a + b);
-  const s = a + b;
-  return (
-    LN_SQRT_2PI + (a - 0.5) * Math.log1p(-b / s) + (b - 0.5) * Math.log1p(-a / s) - 0.5 * Math.log(s) +
-    stirlingCorrection(a) + stirlingCorrection(b) - stirlingCorrection(s)
-  );
-}
-
-/** c(x) = lgamma(x) - [(x - 1/2) log x - x + log(2 pi)/2], by its asymptotic series for x >= 10. */
-function stirlingCorrection(x: number): number {
-  if (x < 10) return gammaln(x) - ((x - 0.5) * Math.log(x) - x + LN_SQRT_2PI);
-  const x2 = x * x;
-  return (1 / x) * (1 / 12 - (1 / x2) * (1 / 360 - (1 / x2) * (1 / 1260 - 1 / (1680 * x2))));
 }
 
 /** log of the upper normal tail, accurate for every z (continued fraction beyond z = 5). */

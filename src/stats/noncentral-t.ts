@@ -35,7 +35,8 @@
  * d_z = 3/sqrt(20).
  */
 import { betainc, gammaln, normalCdf, tCdf } from './distributions.js';
-import { logBeta, smallUpperTail } from './noncentral-t-tail.js';
+import { smallUpperTail } from './noncentral-t-tail.js';
+import { logBeta } from './special.js';
 
 /** Relative size of a neglected remainder. */
 const LOG_EPS = Math.log(1e-17);

@@ -63,7 +63,7 @@ export function gammaln(x: number): number {
  * c(x) = log Gamma(x) - [(x - 1/2) log x - x + log(2 pi)/2], by Stirling's series (Abramowitz and
  * Stegun 6.1.41) for x >= 10, where six terms leave an error below 1e-17.
  */
-function stirlingCorrection(x: number): number {
+export function stirlingCorrection(x: number): number {
   if (x < 10) return gammaln(x) - ((x - 0.5) * Math.log(x) - x + HALF_LOG_2PI);
   const r = 1 / x;
   const r2 = r * r;
