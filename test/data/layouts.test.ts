@@ -4,26 +4,16 @@
  * column options. All data are invented.
  */
 import { describe, expect, it } from 'vitest';
-import { InputError } from '../../src/errors.js';
 import { columnRequests, prepare, checkLayout } from '../../src/data/prepare.js';
 import { quickLayout } from '../../src/data/quick-layout.js';
 import { readTableFromText } from '../../src/data/read.js';
 import type { LayoutSpec, OutcomeSpec, PreparedData } from '../../src/data/types.js';
+import { inputError } from '../helpers/errors.js';
 
 const numeric: OutcomeSpec = { binary: false };
 
 function run(text: string, m: LayoutSpec, outcome: OutcomeSpec = numeric): PreparedData {
   return prepare(readTableFromText(text, 'data.csv', columnRequests(m, outcome)), m, outcome);
-}
-
-function error(f: () => unknown): InputError {
-  try {
-    f();
-  } catch (e) {
-    if (e instanceof InputError) return e;
-    throw e;
-  }
-  throw new Error('expected an InputError');
 }
 
 const wide = (extra: Partial<Extract<LayoutSpec, { layout: 'wide' }>> = {}): LayoutSpec => ({ layout: 'wide', first: 'before_mm', second: 'after_mm', id: 'panel', pairBy: 'id', ...extra });
@@ -45,14 +35,14 @@ describe('wide paired layout', () => {
   });
 
   it('refuses a repeated id, naming both lines', () => {
-    const e = error(() => run('panel,before_mm,after_mm\nD1,4.1,3.9\nD2,5.0,4.4\nD1,3.8,3.9\n', wide()));
+    const e = inputError(() => run('panel,before_mm,after_mm\nD1,4.1,3.9\nD2,5.0,4.4\nD1,3.8,3.9\n', wide()));
     expect(e.message).toMatch(/1 repeated id in column 'panel'/);
     expect(e.problems[0]).toMatchObject({ line: 4, col: 1, message: "id 'D1' appears again (first on line 2)" });
   });
 
   it('pairs by row order only when told, and asks for an id otherwise', () => {
     const text = 'before_mm,after_mm\n4.1,3.9\n5.0,4.4\n';
-    expect(error(() => run(text, { layout: 'wide', first: 'before_mm', second: 'after_mm', pairBy: 'id' })).message).toMatch(/--pair-by-row-order/);
+    expect(inputError(() => run(text, { layout: 'wide', first: 'before_mm', second: 'after_mm', pairBy: 'id' })).message).toMatch(/--pair-by-row-order/);
     const p = run(text, { layout: 'wide', first: 'before_mm', second: 'after_mm', pairBy: 'row-order' });
     expect(p.counts.pairs).toBe(2);
     expect(p.notes.join(' ')).toMatch(/pairs formed by row/);
@@ -66,7 +56,7 @@ describe('wide paired layout', () => {
   });
 
   it('says so when no pair is complete', () => {
-    expect(error(() => run('panel,before_mm,after_mm\nD1,4.1,\nD2,,4.4\n', wide())).message).toMatch(/no complete pairs/);
+    expect(inputError(() => run('panel,before_mm,after_mm\nD1,4.1,\nD2,,4.4\n', wide())).message).toMatch(/no complete pairs/);
   });
 });
 
@@ -86,7 +76,7 @@ describe('long paired layout', () => {
   });
 
   it('refuses the same id twice under one condition', () => {
-    const e = error(() => run('tile,gauge,um\nT1,A,11\nT1,B,10\nT1,A,12\n', long));
+    const e = inputError(() => run('tile,gauge,um\nT1,A,11\nT1,B,10\nT1,A,12\n', long));
     expect(e.problems[0]).toMatchObject({ line: 4, message: "id 'T1' with condition 'A' appears again (first on line 2)" });
   });
 
@@ -99,9 +89,9 @@ describe('long paired layout', () => {
   });
 
   it('lists the levels when a named level is absent or there are more than two', () => {
-    expect(error(() => run('tile,gauge,um\nT1,A,11\nT1,B,10\n', { ...long, firstLevel: 'a' })).message).toMatch(/'a' does not occur .* 'A', 'B'/);
+    expect(inputError(() => run('tile,gauge,um\nT1,A,11\nT1,B,10\n', { ...long, firstLevel: 'a' })).message).toMatch(/'a' does not occur .* 'A', 'B'/);
     const three = 'tile,gauge,um\nT1,A,1\nT1,B,2\nT1,C,3\n';
-    expect(error(() => run(three, { ...long, firstLevel: undefined, secondLevel: undefined })).message).toMatch(/3 distinct values .*--first-level/);
+    expect(inputError(() => run(three, { ...long, firstLevel: undefined, secondLevel: undefined })).message).toMatch(/3 distinct values .*--first-level/);
   });
 });
 
@@ -115,13 +105,13 @@ describe('independent layouts', () => {
   });
 
   it('refuses a repeated id in independent groups as pseudo-replication', () => {
-    const e = error(() => run('hive,feed,gain_kg\nH1,syrup,3.4\nH2,fondant,2.1\nH1,syrup,3.9\n', { ...groups, id: 'hive' }));
+    const e = inputError(() => run('hive,feed,gain_kg\nH1,syrup,3.4\nH2,fondant,2.1\nH1,syrup,3.9\n', { ...groups, id: 'hive' }));
     expect(e.message).toMatch(/pseudo-replication/);
     expect(e.problems[0]).toMatchObject({ line: 4 });
   });
 
   it('says which group is empty', () => {
-    expect(error(() => run('hive,feed,gain_kg\nH1,syrup,3.4\nH2,fondant,NA\n', groups)).message).toMatch(/'fondant' has no values/);
+    expect(inputError(() => run('hive,feed,gain_kg\nH1,syrup,3.4\nH2,fondant,NA\n', groups)).message).toMatch(/'fondant' has no values/);
   });
 
   it('reads two columns of different lengths', () => {
@@ -143,11 +133,11 @@ describe('crossover layout', () => {
   });
 
   it('does not guess which sequence took the first condition first', () => {
-    expect(error(() => run(text, { ...cx, firstThenSecond: undefined })).message).toMatch(/does not guess/);
+    expect(inputError(() => run(text, { ...cx, firstThenSecond: undefined })).message).toMatch(/does not guess/);
   });
 
   it('refuses a third sequence', () => {
-    expect(error(() => run(text + 'C6,XX,40,41\n', cx)).message).toMatch(/3 distinct values|3 sequences/);
+    expect(inputError(() => run(text + 'C6,XX,40,41\n', cx)).message).toMatch(/3 distinct values|3 sequences/);
   });
 });
 
@@ -162,9 +152,9 @@ describe('binary outcomes', () => {
 
   it('takes an explicit event value, and asks for one otherwise', () => {
     expect(run('p,q\npass,fail\nfail,fail\n', m, { binary: true, event: 'fail' }).input).toEqual({ kind: 'paired', first: [0, 1], second: [1, 1] });
-    expect(error(() => run('p,q\npass,fail\n', m, { binary: true })).message).toMatch(/cannot tell which value is the event/);
-    expect(error(() => run('p,q\npass,fail\n', m, { binary: true, event: 'Pass' })).message).toMatch(/does not occur/);
-    expect(error(() => run('p,q\na,b\nc,a\n', m, { binary: true })).message).toMatch(/found 3/);
+    expect(inputError(() => run('p,q\npass,fail\n', m, { binary: true })).message).toMatch(/cannot tell which value is the event/);
+    expect(inputError(() => run('p,q\npass,fail\n', m, { binary: true, event: 'Pass' })).message).toMatch(/does not occur/);
+    expect(inputError(() => run('p,q\na,b\nc,a\n', m, { binary: true })).message).toMatch(/found 3/);
   });
 });
 
@@ -179,10 +169,10 @@ describe('quick-mode columns', () => {
   });
 
   it('names missing and misplaced options, and shows the other way to give columns', () => {
-    const e = error(() => quickLayout('paired', 'paired-t', { first: 'a', group: 'g' }));
+    const e = inputError(() => quickLayout('paired', 'paired-t', { first: 'a', group: 'g' }));
     expect(e.message).toMatch(/missing --second; --group does not fit/);
     expect(e.message).toMatch(/or: --id ID --condition C --value V/);
-    expect(error(() => quickLayout('independent', 'welch-t', { first: 'a', second: 'b', id: 'u' })).message).toMatch(/--id does not fit/);
+    expect(inputError(() => quickLayout('independent', 'welch-t', { first: 'a', second: 'b', id: 'u' })).message).toMatch(/--id does not fit/);
   });
 
   it('refuses a layout that cannot hold the design of the procedure', () => {

@@ -12,6 +12,7 @@ import { join } from 'node:path';
 import { InputError } from '../../src/errors.js';
 import { readTable, readTableFromText } from '../../src/data/read.js';
 import type { ColumnRequest, ReadOptions, Table } from '../../src/data/types.js';
+import { inputError } from '../helpers/errors.js';
 
 const num = (name: string): ColumnRequest => ({ name, kind: 'number', role: name });
 const txt = (name: string): ColumnRequest => ({ name, kind: 'category', role: name });
@@ -50,16 +51,6 @@ function both(text: string, requests: ColumnRequest[], opts: ReadOptions = {}): 
   expect(b.parser).toBe('full');
   expect(plain(b)).toEqual(plain(a));
   return a;
-}
-
-function inputError(f: () => unknown): InputError {
-  try {
-    f();
-  } catch (e) {
-    if (e instanceof InputError) return e;
-    throw e;
-  }
-  throw new Error('expected an InputError');
 }
 
 const KILN = 'tile,gauge_a_um,gauge_b_um\nT01,212.4,209.8\nT02,198.7,197.9\nT03,225.1,221.6\n';
